@@ -1,0 +1,41 @@
+import path from 'node:path';
+import js from '@eslint/js';
+import svelte from 'eslint-plugin-svelte';
+import globals from 'globals';
+import ts from 'typescript-eslint';
+import svelteConfig from '../svelte.config.js';
+
+export default ts.config(
+	{
+		ignores: [
+			'.svelte-kit/',
+			'build/',
+			'.data/',
+			'fake-storage/data/',
+			'fake-storage/test-data/',
+			'test-results/'
+		]
+	},
+	js.configs.recommended,
+	...ts.configs.recommended,
+	...svelte.configs.recommended,
+	{ languageOptions: { globals: { ...globals.browser, ...globals.node } } },
+	{
+		files: ['**/*.ts', '**/*.svelte', '**/*.svelte.ts'],
+		languageOptions: {
+			parserOptions: {
+				projectService: { allowDefaultProject: [] },
+				tsconfigRootDir: path.resolve(import.meta.dirname, '..'),
+				extraFileExtensions: ['.svelte'],
+				parser: ts.parser,
+				svelteConfig
+			}
+		},
+		rules: {
+			'@typescript-eslint/no-floating-promises': 'error',
+			// The app is served at the site root (no `paths.base`), so plain hrefs are already right.
+			'svelte/no-navigation-without-resolve': 'off',
+			'@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_' }]
+		}
+	}
+);

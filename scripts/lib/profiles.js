@@ -1,0 +1,69 @@
+// Ports, folders and names for the two stacks. `npm test` uses its own set so it can run
+// while `npm start` is serving. Every value can be overridden from the environment.
+import path from 'node:path';
+
+const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '..', '..');
+
+const DEFAULTS = {
+	app: {
+		PORT: '3000',
+		DB_PORT: '3307',
+		S3_PORT: '4569',
+		SMTP_PORT: '2525',
+		DB_NAME: 'squishline',
+		DB_DATA_DIR: '.data/mariadb',
+		S3_DATA_DIR: 'fake-storage/data',
+		FAKE_MAIL_DIR: '.data/outbox',
+		BUILD_DIR: 'build',
+		RUN_DIR: '.data/run'
+	},
+	test: {
+		PORT: '3100',
+		DB_PORT: '3317',
+		S3_PORT: '4579',
+		SMTP_PORT: '2535',
+		DB_NAME: 'squishline_test',
+		DB_DATA_DIR: '.data/test-mariadb',
+		S3_DATA_DIR: 'fake-storage/test-data',
+		FAKE_MAIL_DIR: '.data/test-outbox',
+		BUILD_DIR: '.data/test-build',
+		RUN_DIR: '.data/test-run'
+	}
+};
+
+/** The full environment for one stack: defaults, then the caller's environment on top. */
+export function stackEnv(name, outer = process.env) {
+	const base = DEFAULTS[name];
+	const pick = (k) => outer[k] ?? base[k];
+	const abs = (p) => path.resolve(ROOT, p);
+	const host = outer.HOST ?? '127.0.0.1';
+	const port = pick('PORT');
+	const e = {
+		HOST: host,
+		PORT: port,
+		ORIGIN: outer.ORIGIN ?? `http://${host}:${port}`,
+		DB_HOST: '127.0.0.1',
+		DB_PORT: pick('DB_PORT'),
+		DB_NAME: pick('DB_NAME'),
+		DB_USER: outer.DB_USER ?? 'squishline',
+		DB_PASSWORD: outer.DB_PASSWORD ?? 'squishline-local',
+		DB_DATA_DIR: abs(pick('DB_DATA_DIR')),
+		S3_PORT: pick('S3_PORT'),
+		S3_DATA_DIR: abs(pick('S3_DATA_DIR')),
+		S3_BUCKET: outer.S3_BUCKET ?? 'squishline',
+		S3_REGION: outer.S3_REGION ?? 'us-east-1',
+		S3_ACCESS_KEY_ID: outer.S3_ACCESS_KEY_ID ?? 'S3RVER',
+		S3_SECRET_ACCESS_KEY: outer.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
+		SMTP_PORT: pick('SMTP_PORT'),
+		FAKE_MAIL_DIR: abs(pick('FAKE_MAIL_DIR')),
+		BUILD_DIR: abs(pick('BUILD_DIR')),
+		RUN_DIR: abs(pick('RUN_DIR')),
+		BODY_SIZE_LIMIT: outer.BODY_SIZE_LIMIT ?? '200M',
+		AUTH_TRUST_HOST: 'true'
+	};
+	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
+	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;
+	return e;
+}
+
+export { ROOT };

@@ -1,0 +1,67 @@
+// What `npm test` runs once the test stack is up, and the counts it prints at the end.
+import fs from 'node:fs';
+import path from 'node:path';
+import { run } from './proc.js';
+import { ROOT } from './profiles.js';
+
+const readJson = (file) => {
+	try {
+		return JSON.parse(fs.readFileSync(file, 'utf8'));
+	} catch {
+		return null;
+	}
+};
+
+async function vitest(project, env) {
+	const out = path.join(env.RUN_DIR, `${project}.json`);
+	fs.rmSync(out, { force: true });
+	console.log(`\n▸ ${project} tests (vitest)`);
+	const code = await run(
+		process.execPath,
+		[
+			'node_modules/vitest/vitest.mjs',
+			'run',
+			'--project',
+			project,
+			'--reporter=default',
+			'--reporter=json',
+			`--outputFile.json=${out}`
+		],
+		{ cwd: ROOT, env }
+	);
+	const r = readJson(out);
+	return { name: project, code, passed: r?.numPassedTests ?? 0, failed: r ? r.numFailedTests : 1 };
+}
+
+async function playwright(env) {
+	const out = path.join(env.RUN_DIR, 'browser.json');
+	fs.rmSync(out, { force: true });
+	console.log('\n▸ browser tests (Playwright in Debian Chromium)');
+	const code = await run(
+		process.execPath,
+		['node_modules/@playwright/test/cli.js', 'test', '--config', 'tests/e2e/playwright.config.ts'],
+		{ cwd: ROOT, env: { ...env, E2E_BASE_URL: env.ORIGIN, E2E_JSON: out } }
+	);
+	const s = readJson(out)?.stats;
+	return {
+		name: 'browser',
+		code,
+		passed: s ? s.expected + s.flaky : 0,
+		failed: s ? s.unexpected : 1
+	};
+}
+
+export async function runSuites({ env, build, startApp }) {
+	const results = [await vitest('unit', env), await vitest('integration', env)];
+	await build();
+	await startApp();
+	results.push(await playwright(env));
+
+	console.log('\n▸ summary');
+	for (const r of results) console.log(`  ${r.name}: ${r.passed} passed, ${r.failed} failed`);
+	const passed = results.reduce((n, r) => n + r.passed, 0);
+	const failed = results.reduce((n, r) => n + r.failed, 0);
+	const bad = results.some((r) => r.code !== 0) || failed > 0;
+	console.log(`total: ${passed} passed, ${failed} failed`);
+	return bad ? 1 : 0;
+}

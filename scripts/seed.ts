@@ -1,0 +1,22 @@
+// Loads the invented demo scenario. Safe to run again: whatever exists is left as it is.
+import fs from 'node:fs';
+import { closeDb } from '../src/lib/server/db/connection';
+import * as users from '../src/lib/server/db/users';
+import type { Role } from '../src/lib/roles';
+
+type Person = { email: string; name: string; role: Role; units?: 'metric' | 'imperial' };
+const demo = JSON.parse(
+	fs.readFileSync(new URL('./demo/people.json', import.meta.url), 'utf8')
+) as {
+	passwords: Record<Role, string>;
+	people: Person[];
+};
+
+let added = 0;
+for (const p of demo.people) {
+	if (await users.readByEmail(p.email)) continue;
+	await users.create({ ...p, password: demo.passwords[p.role], verified: true });
+	added++;
+}
+console.log(`  ${added} demo accounts added, ${demo.people.length - added} already there`);
+await closeDb();

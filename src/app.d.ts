@@ -1,0 +1,20 @@
+import type { CurrentUser } from '$lib/server/auth/current-user';
+
+declare global {
+	namespace App {
+		interface Locals {
+			/** The signed-in member, loaded fresh from the database on every request. */
+			user: CurrentUser | null;
+			/** Set when a session exists but its account is suspended. */
+			suspended: boolean;
+		}
+		interface Error {
+			message: string;
+			/** API routes repeat the message here, with field problems in `issues`. */
+			error?: string;
+			issues?: { path: string; message: string }[];
+		}
+	}
+}
+
+export {};

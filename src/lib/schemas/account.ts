@@ -1,0 +1,52 @@
+import { z } from 'zod';
+
+export const PASSWORD_MIN = 10;
+
+const email = z.email({ error: 'Enter an e-mail address like name@example.org.' }).trim().max(254);
+const password = z
+	.string()
+	.min(PASSWORD_MIN, { error: `Use at least ${PASSWORD_MIN} characters.` })
+	.max(200, { error: 'That is longer than we accept (200 characters).' });
+
+export const passwordSignInSchema = z.object({
+	email,
+	password: z.string().min(1, { error: 'Enter your password.' }).max(200),
+	next: z.string().optional()
+});
+
+export const linkSignInSchema = z.object({ email, next: z.string().optional() });
+
+export const signUpSchema = z
+	.object({
+		name: z.string().trim().min(2, { error: 'Give a name of at least 2 characters.' }).max(80),
+		email,
+		password,
+		confirm: z.string(),
+		terms: z.literal(true, { error: 'Please accept the terms of use.' })
+	})
+	.refine((v) => v.password === v.confirm, {
+		path: ['confirm'],
+		error: 'The two passwords differ.'
+	});
+
+export const resetRequestSchema = z.object({ email });
+
+export const newPasswordSchema = z
+	.object({ password, confirm: z.string() })
+	.refine((v) => v.password === v.confirm, {
+		path: ['confirm'],
+		error: 'The two passwords differ.'
+	});
+
+export const profileSchema = z.object({
+	name: z.string().trim().min(2, { error: 'Give a name of at least 2 characters.' }).max(80),
+	units: z.enum(['metric', 'imperial']),
+	mailComments: z.boolean().default(false),
+	mailShop: z.boolean().default(false),
+	mailNews: z.boolean().default(false)
+});
+
+/** Only same-site paths: a `next` pointing elsewhere would make sign-in an open redirect. */
+export function safeNext(next: string | null | undefined): string {
+	return next && next.startsWith('/') && !next.startsWith('//') ? next : '/';
+}

@@ -1,0 +1,76 @@
+import * as tokens from './auth/email-tokens';
+import * as users from './db/users';
+import { env } from './env';
+import { linkLetter, send } from './mail';
+
+// Account flows that send mail. Answers never reveal whether an address has an account.
+
+const link = (path: string) => new URL(path, env().ORIGIN).toString();
+
+export async function signUp(input: { name: string; email: string; password: string }) {
+	const existing = await users.readByEmail(input.email);
+	if (existing) {
+		await send(
+			linkLetter({
+				to: existing.email,
+				subject: 'Someone tried to join Squishline with your address',
+				intro: 'This address already has a Squishline account, so no new one was made.',
+				action: 'Sign in or reset your password',
+				url: link('/signin'),
+				outro: 'If that was not you, nothing has changed and you can ignore this mail.'
+			})
+		);
+		return;
+	}
+	const user = await users.create({
+		name: input.name,
+		email: input.email,
+		password: input.password
+	});
+	await sendVerification(user.id, user.email);
+}
+
+async function sendVerification(userId: string, email: string) {
+	const token = await tokens.issue(userId, 'verify');
+	await send(
+		linkLetter({
+			to: email,
+			subject: 'Confirm your address for Squishline',
+			intro: 'Welcome to Squishline. Confirm this address to finish opening your bench.',
+			action: 'Confirm my address',
+			url: link(`/verify/${token}`),
+			outro: 'The link works once, for 48 hours. If you did not join, ignore this mail.'
+		})
+	);
+}
+
+export async function confirmAddress(token: string) {
+	const used = await tokens.consume(token, 'verify');
+	if (used.ok) await users.markVerified(used.userId);
+	return used;
+}
+
+export async function requestReset(email: string) {
+	const user = await users.readByEmail(email);
+	if (!user || user.suspendedAt) return;
+	const token = await tokens.issue(user.id, 'reset');
+	await send(
+		linkLetter({
+			to: user.email,
+			subject: 'Reset your Squishline password',
+			intro: 'Someone (we hope you) asked to reset the password of this Squishline account.',
+			action: 'Choose a new password',
+			url: link(`/reset/${token}`),
+			outro: 'The link works once, for one hour. If you did not ask, your password stays as it was.'
+		})
+	);
+}
+
+export async function resetPassword(token: string, password: string) {
+	const used = await tokens.consume(token, 'reset');
+	if (!used.ok) return used;
+	await users.setPassword(used.userId, password);
+	// Following the mailed link proves the address, as a verification link would.
+	await users.markVerified(used.userId);
+	return used;
+}

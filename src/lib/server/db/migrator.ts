@@ -1,0 +1,23 @@
+import type { QueryInterface } from 'sequelize';
+import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
+import { db } from './connection';
+import * as m001 from './migrations/2026.12.01T22.00.00.create-accounts';
+import * as m002 from './migrations/2026.12.01T22.10.00.create-email-tokens-and-desk-notes';
+
+export type Migration = MigrationFn<QueryInterface>;
+
+// Listed by hand rather than globbed: the same list then works under tsx, vitest and a bundle.
+const MIGRATIONS = [
+	{ name: '2026.12.01T22.00.00.create-accounts', ...m001 },
+	{ name: '2026.12.01T22.10.00.create-email-tokens-and-desk-notes', ...m002 }
+];
+
+export function migrator() {
+	const sequelize = db();
+	return new Umzug({
+		migrations: MIGRATIONS.map(({ name, up, down }) => ({ name, up, down })),
+		context: sequelize.getQueryInterface(),
+		storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+		logger: undefined
+	});
+}

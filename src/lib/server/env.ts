@@ -1,0 +1,34 @@
+import { z } from 'zod';
+
+// Runtime configuration in one place. It reads process.env rather than $env/dynamic/private
+// because the migration and seed scripts import the database layer outside Vite; adapter-node
+// fills process.env from the real environment, so both paths see the same values.
+const schema = z.object({
+	ORIGIN: z.string().default('http://127.0.0.1:3000'),
+	DB_HOST: z.string().default('127.0.0.1'),
+	DB_PORT: z.coerce.number().int().positive().default(3307),
+	DB_NAME: z.string().default('squishline'),
+	DB_USER: z.string().default('squishline'),
+	DB_PASSWORD: z.string().default('squishline-local'),
+	S3_ENDPOINT: z.string().default('http://127.0.0.1:4569'),
+	S3_REGION: z.string().default('us-east-1'),
+	S3_BUCKET: z.string().default('squishline'),
+	S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+	S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+	S3_FORCE_PATH_STYLE: z
+		.enum(['true', 'false'])
+		.default('true')
+		.transform((v) => v === 'true'),
+	SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),
+	MAIL_FROM: z.string().default('Squishline <bench@squishline.test>'),
+	/** Folder the local fake mail server writes to; when set, the outbox page is on. */
+	FAKE_MAIL_DIR: z.string().optional(),
+	AUTH_SECRET: z.string().optional()
+});
+
+export type Env = z.infer<typeof schema>;
+
+/** Parsed on every call: cheap, and tests can point a module at another service by changing process.env. */
+export function env(): Env {
+	return schema.parse(process.env);
+}

@@ -1,0 +1,43 @@
+import { db } from './db/connection';
+import { pingMail } from './mail';
+import { pingStorage } from './storage';
+
+export type ServiceName = 'database' | 'object store' | 'mail server';
+export type Health = {
+	status: 'ok' | 'down';
+	services: Record<ServiceName, { up: boolean; problem?: string }>;
+	down: ServiceName[];
+};
+
+const withTimeout = <T>(p: Promise<T>, ms: number) =>
+	Promise.race([
+		p,
+		new Promise<never>((_, reject) =>
+			setTimeout(() => reject(new Error(`no answer in ${ms} ms`)), ms)
+		)
+	]);
+
+const probes: Record<ServiceName, () => Promise<unknown>> = {
+	database: () => db().query('SELECT 1'),
+	'object store': pingStorage,
+	'mail server': pingMail
+};
+
+/** Asks each service in parallel; one that fails or is slow is reported by name. */
+export async function checkHealth(): Promise<Health> {
+	const names = Object.keys(probes) as ServiceName[];
+	const results = await Promise.allSettled(names.map((n) => withTimeout(probes[n](), 4000)));
+	const services = {} as Health['services'];
+	results.forEach((r, i) => {
+		services[names[i]] =
+			r.status === 'fulfilled'
+				? { up: true }
+				: {
+						up: false,
+						problem:
+							r.reason instanceof Error ? r.reason.message || r.reason.name : String(r.reason)
+					};
+	});
+	const down = names.filter((n) => !services[n].up);
+	return { status: down.length ? 'down' : 'ok', services, down };
+}

@@ -1,0 +1,8 @@
+import { env } from '$lib/server/env';
+import type { LayoutServerLoad } from './$types';
+
+export const load: LayoutServerLoad = async ({ locals }) => ({
+	user: locals.user,
+	suspended: locals.suspended,
+	outbox: Boolean(env().FAKE_MAIL_DIR)
+});

@@ -1,0 +1,10 @@
+import { error } from '@sveltejs/kit';
+import { linksIn, outboxDir, readMail } from '$lib/server/outbox';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ params }) => {
+	if (!outboxDir()) error(404, 'There is no local outbox here.');
+	const mail = await readMail(params.id);
+	if (!mail) error(404, 'No such mail in the outbox.');
+	return { mail: { ...mail, html: undefined }, links: linksIn(mail.text) };
+};

@@ -1,0 +1,17 @@
+import { randomUUID } from 'node:crypto';
+import type { Role } from '../../src/lib/roles';
+import * as users from '../../src/lib/server/db/users';
+
+/** A fresh account with a unique address, so tests never step on the demo data or each other. */
+export async function makeUser(opts: { role?: Role; verified?: boolean; password?: string } = {}) {
+	const email = `t-${randomUUID().slice(0, 12)}@tests.squishline.test`;
+	const password = opts.password ?? 'correct horse battery';
+	const user = await users.create({
+		email,
+		name: `Tester ${email.slice(2, 8)}`,
+		password,
+		role: opts.role ?? 'member',
+		verified: opts.verified ?? true
+	});
+	return { id: user.id, email, password };
+}

@@ -1,0 +1,29 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	server: { host: '127.0.0.1' },
+	preview: { host: '127.0.0.1' },
+	test: {
+		projects: [
+			{
+				extends: true,
+				test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' }
+			},
+			{
+				extends: true,
+				test: {
+					name: 'integration',
+					include: ['tests/integration/**/*.test.ts'],
+					environment: 'node',
+					// One real database: files run one after another so they never race on shared rows.
+					fileParallelism: false,
+					testTimeout: 30_000,
+					hookTimeout: 60_000
+				}
+			}
+		]
+	}
+});
