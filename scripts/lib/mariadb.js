@@ -85,6 +85,8 @@ async function createDatabase(e, socket) {
 	const q = (s) => s.replace(/[`'\\]/g, '');
 	const [db, user, pw] = [q(e.DB_NAME), q(e.DB_USER), q(e.DB_PASSWORD)];
 	const sql = [
+		// The test stack starts every run from an empty database.
+		...(e.FRESH_DB ? [`DROP DATABASE IF EXISTS \`${db}\``] : []),
 		`CREATE DATABASE IF NOT EXISTS \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
 		`CREATE USER IF NOT EXISTS '${user}'@'127.0.0.1' IDENTIFIED BY '${pw}'`,
 		`ALTER USER '${user}'@'127.0.0.1' IDENTIFIED BY '${pw}'`,

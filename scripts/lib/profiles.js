@@ -59,7 +59,8 @@ export function stackEnv(name, outer = process.env) {
 		BUILD_DIR: abs(pick('BUILD_DIR')),
 		RUN_DIR: abs(pick('RUN_DIR')),
 		BODY_SIZE_LIMIT: outer.BODY_SIZE_LIMIT ?? '200M',
-		AUTH_TRUST_HOST: 'true'
+		AUTH_TRUST_HOST: 'true',
+		FRESH_DB: name === 'test' && outer.KEEP_TEST_DB !== '1' ? '1' : ''
 	};
 	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
 	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;

@@ -3,7 +3,9 @@ import type { Role } from '../../src/lib/roles';
 import * as users from '../../src/lib/server/db/users';
 
 /** A fresh account with a unique address, so tests never step on the demo data or each other. */
-export async function makeUser(opts: { role?: Role; verified?: boolean; password?: string } = {}) {
+export async function makeUser(
+	opts: { role?: Role; verified?: boolean; password?: string; suspended?: boolean } = {}
+) {
 	const email = `t-${randomUUID().slice(0, 12)}@tests.squishline.test`;
 	const password = opts.password ?? 'correct horse battery';
 	const user = await users.create({
@@ -13,5 +15,7 @@ export async function makeUser(opts: { role?: Role; verified?: boolean; password
 		role: opts.role ?? 'member',
 		verified: opts.verified ?? true
 	});
+	if (opts.suspended)
+		await users.update(user.id, { suspendedAt: new Date(), suspendedReason: 'test' });
 	return { id: user.id, email, password };
 }

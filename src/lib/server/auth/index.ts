@@ -20,6 +20,8 @@ export class PasswordSignInError extends CredentialsSignin {
 	}
 }
 
+const QUIET = new Set(['Verification', 'AccessDenied']);
+
 let config: SvelteKitAuthConfig | null = null;
 
 function authConfig(): SvelteKitAuthConfig {
@@ -88,7 +90,8 @@ function authConfig(): SvelteKitAuthConfig {
 		},
 		logger: {
 			error(error) {
-				if (error instanceof CredentialsSignin) return; // a wrong password is not a server fault
+				// A wrong password, a spent link or a suspended account is the visitor's news, not a fault.
+				if (error instanceof CredentialsSignin || QUIET.has(error.name)) return;
 				console.error('[auth]', error);
 			}
 		}
