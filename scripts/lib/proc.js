@@ -95,3 +95,24 @@ export function run(cmd, args, opts = {}) {
 		c.once('exit', (code, signal) => resolve(code ?? (signal ? 128 : 1)));
 	});
 }
+
+/** Like run(), but drops output lines matching `drop` (third-party bundler chatter). */
+export function runQuiet(cmd, args, drop, opts = {}) {
+	return new Promise((resolve) => {
+		const c = spawn(cmd, args, { ...opts, stdio: ['ignore', 'pipe', 'pipe'] });
+		const pass = (stream, out) => {
+			let buf = '';
+			stream.on('data', (d) => {
+				buf += d.toString();
+				const lines = buf.split('\n');
+				buf = lines.pop() ?? '';
+				for (const l of lines) if (!drop.test(l)) out.write(l + '\n');
+			});
+			stream.on('end', () => buf && !drop.test(buf) && out.write(buf + '\n'));
+		};
+		pass(c.stdout, process.stdout);
+		pass(c.stderr, process.stderr);
+		c.once('error', () => resolve(127));
+		c.once('exit', (code) => resolve(code ?? 1));
+	});
+}
