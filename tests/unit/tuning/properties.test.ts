@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import { describe, it } from 'vitest';
 import * as t from '../../../src/lib/tuning';
 
 const close = (a: number, b: number) =>
