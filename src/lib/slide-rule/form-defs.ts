@@ -1,0 +1,360 @@
+import type { FieldDef, FormValues } from './forms';
+import type { Units } from './types';
+import type { CalculatorName } from './index';
+
+const portModes = [
+	{ value: 'height', label: 'roof height below TDC' },
+	{ value: 'duration', label: 'duration in degrees' }
+];
+const pressureKinds = [
+	{ value: 'sea-level', label: 'sea-level reading (weather report)' },
+	{ value: 'station', label: 'measured at the place' }
+];
+const numberings = [
+	{ value: 'diameter', label: 'by orifice diameter' },
+	{ value: 'flow', label: 'by flow' }
+];
+
+const place = (prefix: string, group: string, name: (s: string) => string): FieldDef[] => [
+	{ name: name('elevation'), label: `${prefix}Elevation`, kind: 'number', dim: 'elevation', group },
+	{ name: name('temp'), label: `${prefix}Air temperature`, kind: 'number', dim: 'temp', group },
+	{ name: name('humidity'), label: `${prefix}Relative humidity`, kind: 'number', unit: '%', group },
+	{
+		name: name('pressure'),
+		label: `${prefix}Air pressure`,
+		kind: 'number',
+		dim: 'pressure',
+		optional: true,
+		hint: 'Leave empty for the standard atmosphere at that elevation.',
+		group
+	},
+	{
+		name: name('pressureKind'),
+		label: `${prefix}That pressure is a`,
+		kind: 'select',
+		options: pressureKinds,
+		group
+	}
+];
+const cap = (p: string) => (s: string) => p + s[0].toUpperCase() + s.slice(1);
+
+export const FORMS: Record<CalculatorName, FieldDef[]> = {
+	cylinder: [
+		{ name: 'bore', label: 'Bore', kind: 'number', dim: 'length', group: 'Cylinder' },
+		{ name: 'stroke', label: 'Stroke', kind: 'number', dim: 'length', group: 'Cylinder' },
+		{
+			name: 'rod',
+			label: 'Con-rod length (centres)',
+			kind: 'number',
+			dim: 'length',
+			optional: true,
+			group: 'Cylinder'
+		},
+		{
+			name: 'chamberCc',
+			label: 'Combustion chamber volume',
+			kind: 'number',
+			unit: 'cc',
+			optional: true,
+			hint: 'Measured with a burette, piston at TDC.',
+			group: 'Cylinder'
+		},
+		{
+			name: 'exhaustMode',
+			label: 'Exhaust port: I know its',
+			kind: 'select',
+			options: portModes,
+			group: 'Ports'
+		},
+		{
+			name: 'exhaust',
+			label: 'Exhaust port',
+			kind: 'number',
+			dim: 'length',
+			modeField: 'exhaustMode',
+			optional: true,
+			hint: 'Height: roof below the crown edge at TDC. Duration: degrees open.',
+			group: 'Ports'
+		},
+		{
+			name: 'transferMode',
+			label: 'Transfer ports: I know their',
+			kind: 'select',
+			options: portModes,
+			group: 'Ports'
+		},
+		{
+			name: 'transfer',
+			label: 'Transfer ports',
+			kind: 'number',
+			dim: 'length',
+			modeField: 'transferMode',
+			optional: true,
+			group: 'Ports'
+		},
+		{
+			name: 'rpm',
+			label: 'Engine speed for piston speed',
+			kind: 'number',
+			unit: 'rpm',
+			optional: true,
+			group: 'Running'
+		},
+		{
+			name: 'squish',
+			label: 'Squish clearance (crushed solder)',
+			kind: 'number',
+			dim: 'length',
+			optional: true,
+			group: 'Running'
+		}
+	],
+	gearing: [
+		{
+			name: 'peakRpm',
+			label: 'Peak engine speed',
+			kind: 'number',
+			unit: 'rpm',
+			group: 'Engine and CVT'
+		},
+		{
+			name: 'topCvt',
+			label: 'CVT ratio at top',
+			kind: 'number',
+			unit: ': 1',
+			hint: 'Engine rpm ÷ driven pulley rpm; about 0.75–0.9 fully shifted.',
+			group: 'Engine and CVT'
+		},
+		{
+			name: 'launchCvt',
+			label: 'CVT ratio at launch',
+			kind: 'number',
+			unit: ': 1',
+			optional: true,
+			hint: 'About 2.4–2.8.',
+			group: 'Engine and CVT'
+		},
+		{
+			name: 'primaryDriver',
+			label: 'First stage: driver teeth',
+			kind: 'number',
+			unit: 'teeth',
+			group: 'Final drive'
+		},
+		{
+			name: 'primaryDriven',
+			label: 'First stage: driven teeth',
+			kind: 'number',
+			unit: 'teeth',
+			group: 'Final drive'
+		},
+		{
+			name: 'secondaryDriver',
+			label: 'Second stage: driver teeth',
+			kind: 'number',
+			unit: 'teeth',
+			optional: true,
+			group: 'Final drive'
+		},
+		{
+			name: 'secondaryDriven',
+			label: 'Second stage: driven teeth',
+			kind: 'number',
+			unit: 'teeth',
+			optional: true,
+			group: 'Final drive'
+		},
+		{
+			name: 'tyre',
+			label: 'Rear tyre size',
+			kind: 'text',
+			hint: 'As on the sidewall, e.g. 120/70-12 51J or 3.50-10.',
+			group: 'Wheel'
+		},
+		{
+			name: 'rollingFactor',
+			label: 'Rolling factor',
+			kind: 'number',
+			unit: '×',
+			hint: 'Measured rolling circumference ÷ calculated; 1 if unknown.',
+			group: 'Wheel'
+		},
+		{
+			name: 'checkSpeed',
+			label: 'Engine speed at this road speed',
+			kind: 'number',
+			dim: 'speed',
+			optional: true,
+			group: 'Checks'
+		},
+		{
+			name: 'stockSpeed',
+			label: 'Stock top speed (measured)',
+			kind: 'number',
+			dim: 'speed',
+			optional: true,
+			group: 'Checks'
+		},
+		{
+			name: 'brakesUpgraded',
+			label: 'Brakes upgraded for the extra speed',
+			kind: 'checkbox',
+			group: 'Checks'
+		}
+	],
+	'air-and-jets': [
+		...place('', 'The place', (s) => s),
+		{
+			name: 'jet',
+			label: 'Main jet (optional)',
+			kind: 'number',
+			unit: 'size',
+			optional: true,
+			group: 'Jetting'
+		},
+		{
+			name: 'numbering',
+			label: 'The jet series is numbered',
+			kind: 'select',
+			options: numberings,
+			group: 'Jetting'
+		}
+	],
+	retune: [
+		{
+			name: 'jet',
+			label: 'Main jet that runs right there',
+			kind: 'number',
+			unit: 'size',
+			group: 'Jetting'
+		},
+		{
+			name: 'numbering',
+			label: 'The jet series is numbered',
+			kind: 'select',
+			options: numberings,
+			group: 'Jetting'
+		},
+		{
+			name: 'step',
+			label: 'Step between jet sizes',
+			kind: 'number',
+			unit: 'size',
+			hint: 'e.g. 2 for 96, 98, 100…',
+			group: 'Jetting'
+		},
+		...place('Tuned at: ', 'Where it was tuned', cap('from')),
+		...place('Target: ', 'Where it will run', cap('to'))
+	]
+};
+
+export const DEFAULTS: Record<CalculatorName, Record<Units, FormValues>> = {
+	cylinder: {
+		metric: {
+			bore: '47',
+			stroke: '39.2',
+			rod: '85',
+			chamberCc: '6.5',
+			exhaustMode: 'height',
+			exhaust: '12.5',
+			transferMode: 'height',
+			transfer: '18',
+			rpm: '10000',
+			squish: '0.8'
+		},
+		imperial: {
+			bore: '1.8504',
+			stroke: '1.5433',
+			rod: '3.3465',
+			chamberCc: '6.5',
+			exhaustMode: 'height',
+			exhaust: '0.4921',
+			transferMode: 'height',
+			transfer: '0.7087',
+			rpm: '10000',
+			squish: '0.0315'
+		}
+	},
+	gearing: {
+		metric: {
+			peakRpm: '10500',
+			topCvt: '0.82',
+			launchCvt: '2.6',
+			primaryDriver: '15',
+			primaryDriven: '43',
+			secondaryDriver: '13',
+			secondaryDriven: '47',
+			tyre: '120/70-12 51L',
+			rollingFactor: '1',
+			checkSpeed: '45',
+			stockSpeed: '55',
+			brakesUpgraded: 'false'
+		},
+		imperial: {
+			peakRpm: '10500',
+			topCvt: '0.82',
+			launchCvt: '2.6',
+			primaryDriver: '15',
+			primaryDriven: '43',
+			secondaryDriver: '13',
+			secondaryDriven: '47',
+			tyre: '120/70-12 51L',
+			rollingFactor: '1',
+			checkSpeed: '28',
+			stockSpeed: '34',
+			brakesUpgraded: 'false'
+		}
+	},
+	'air-and-jets': {
+		metric: {
+			elevation: '1400',
+			temp: '25',
+			humidity: '40',
+			pressure: '',
+			pressureKind: 'sea-level',
+			jet: '92',
+			numbering: 'diameter'
+		},
+		imperial: {
+			elevation: '4600',
+			temp: '77',
+			humidity: '40',
+			pressure: '',
+			pressureKind: 'sea-level',
+			jet: '92',
+			numbering: 'diameter'
+		}
+	},
+	retune: {
+		metric: {
+			jet: '92',
+			numbering: 'diameter',
+			step: '2',
+			fromElevation: '1400',
+			fromTemp: '20',
+			fromHumidity: '40',
+			fromPressure: '',
+			fromPressureKind: 'sea-level',
+			toElevation: '20',
+			toTemp: '12',
+			toHumidity: '75',
+			toPressure: '',
+			toPressureKind: 'sea-level'
+		},
+		imperial: {
+			jet: '92',
+			numbering: 'diameter',
+			step: '2',
+			fromElevation: '4600',
+			fromTemp: '68',
+			fromHumidity: '40',
+			fromPressure: '',
+			fromPressureKind: 'sea-level',
+			toElevation: '65',
+			toTemp: '54',
+			toHumidity: '75',
+			toPressure: '',
+			toPressureKind: 'sea-level'
+		}
+	}
+};

@@ -1,0 +1,56 @@
+import type { SpeedWarning } from '../tuning';
+
+export type Units = 'metric' | 'imperial';
+
+/** One line of a calculator's answer; `value` is unrounded, `decimals` is how the page shows it. */
+export type ResultRow = {
+	key: string;
+	label: string;
+	value: number;
+	unit: string;
+	decimals: number;
+	note?: string;
+};
+
+export type CalcResult = { rows: ResultRow[]; warnings: SpeedWarning[]; notes: string[] };
+
+export type Issue = { path: string; message: string };
+
+export type CalcOutcome = { ok: true; result: CalcResult } | { ok: false; issues: Issue[] };
+
+/** An input problem the schema cannot see (e.g. a port roof below the stroke); `path` names the field. */
+export class FieldError extends Error {
+	constructor(
+		readonly path: string,
+		message: string
+	) {
+		super(message);
+	}
+}
+
+/** Runs a tuning call, turning its RangeError into a FieldError on the field the user typed. */
+export function on<T>(path: string, fn: () => T): T {
+	try {
+		return fn();
+	} catch (e) {
+		if (e instanceof RangeError)
+			throw new FieldError(path, e.message.replace(/^\S+\s/, 'This value '));
+		throw e;
+	}
+}
+
+export const row = (
+	key: string,
+	label: string,
+	value: number,
+	unit: string,
+	decimals: number,
+	note?: string
+): ResultRow => ({
+	key,
+	label,
+	value,
+	unit,
+	decimals,
+	...(note ? { note } : {})
+});
