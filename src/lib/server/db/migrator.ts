@@ -3,13 +3,15 @@ import { SequelizeStorage, Umzug, type MigrationFn } from 'umzug';
 import { db } from './connection';
 import * as m001 from './migrations/2026.12.01T22.00.00.create-accounts';
 import * as m002 from './migrations/2026.12.01T22.10.00.create-email-tokens-and-desk-notes';
+import * as m003 from './migrations/2026.12.01T23.00.00.create-builds';
 
 export type Migration = MigrationFn<QueryInterface>;
 
 // Listed by hand rather than globbed: the same list then works under tsx, vitest and a bundle.
 const MIGRATIONS = [
 	{ name: '2026.12.01T22.00.00.create-accounts', ...m001 },
-	{ name: '2026.12.01T22.10.00.create-email-tokens-and-desk-notes', ...m002 }
+	{ name: '2026.12.01T22.10.00.create-email-tokens-and-desk-notes', ...m002 },
+	{ name: '2026.12.01T23.00.00.create-builds', ...m003 }
 ];
 
 export function migrator() {

@@ -1,11 +1,15 @@
 import { db } from '../connection';
 // Account and Session associations are made by @auth/sequelize-adapter itself.
 import { Account, Session, VerificationToken, setupAuthTables } from './auth-tables';
+import { Build } from './build';
 import { DeskNote } from './desk-note';
 import { EmailToken } from './email-token';
+import { Part } from './part';
+import { Run } from './run';
+import { Setup } from './setup';
 import { User } from './user';
 
-export { Account, DeskNote, EmailToken, Session, User, VerificationToken };
+export { Account, Build, DeskNote, EmailToken, Part, Run, Session, Setup, User, VerificationToken };
 
 let ready = false;
 
@@ -17,9 +21,17 @@ export function models() {
 		setupAuthTables(sequelize);
 		EmailToken.setup(sequelize);
 		DeskNote.setup(sequelize);
+		Build.setup(sequelize);
+		Setup.setup(sequelize);
+		Run.setup(sequelize);
+		Part.setup(sequelize);
+		Build.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+		Build.hasMany(Setup, { foreignKey: 'buildId', as: 'setups' });
+		Setup.hasMany(Run, { foreignKey: 'setupId', as: 'runs' });
+		Build.hasMany(Part, { foreignKey: 'buildId', as: 'parts' });
 		EmailToken.belongsTo(User, { foreignKey: 'userId', onDelete: 'CASCADE' });
 		DeskNote.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 		ready = true;
 	}
-	return { User, Account, Session, VerificationToken, EmailToken, DeskNote };
+	return { User, Account, Session, VerificationToken, EmailToken, DeskNote, Build, Setup, Run, Part };
 }
