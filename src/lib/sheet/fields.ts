@@ -34,11 +34,25 @@ export function checkLink(v: string): string | null {
 	}
 }
 
-const opts = (...pairs: [string, string][]): Option[] => pairs.map(([value, label]) => ({ value, label }));
+const opts = (...pairs: [string, string][]): Option[] =>
+	pairs.map(([value, label]) => ({ value, label }));
 
-export const EXHAUST_TYPES = opts(['stock', 'stock'], ['sport', 'sport silencer'], ['expansion-chamber', 'expansion chamber']);
-export const RUN_METHODS = opts(['gps-logger', 'GPS logger'], ['phone-gps', 'phone GPS'], ['radar', 'radar'], ['speedometer', 'speedometer']);
-export const VENUES = opts(['closed-course', 'closed course'], ['private-ground', 'private ground'], ['other', 'other']);
+export const EXHAUST_TYPES = opts(
+	['stock', 'stock'],
+	['sport', 'sport silencer'],
+	['expansion-chamber', 'expansion chamber']
+);
+export const RUN_METHODS = opts(
+	['gps-logger', 'GPS logger'],
+	['phone-gps', 'phone GPS'],
+	['radar', 'radar'],
+	['speedometer', 'speedometer']
+);
+export const VENUES = opts(
+	['closed-course', 'closed course'],
+	['private-ground', 'private ground'],
+	['other', 'other']
+);
 export const PLUG_READINGS = opts(
 	['white', 'white (very lean)'],
 	['light-grey', 'light grey (lean)'],
@@ -62,26 +76,129 @@ export const PART_CATEGORIES = opts(
 	['tools', 'tools and consumables'],
 	['other', 'other']
 );
-export const CURRENCIES = opts(['EUR', 'EUR (€)'], ['GBP', 'GBP (£)'], ['USD', 'USD ($)'], ['CHF', 'CHF'], ['SEK', 'SEK'], ['PLN', 'PLN'], ['CAD', 'CAD'], ['AUD', 'AUD']);
+export const CURRENCIES = opts(
+	['EUR', 'EUR (€)'],
+	['GBP', 'GBP (£)'],
+	['USD', 'USD ($)'],
+	['CHF', 'CHF'],
+	['SEK', 'SEK'],
+	['PLN', 'PLN'],
+	['CAD', 'CAD'],
+	['AUD', 'AUD']
+);
 
 export const BUILD_FIELDS: Field[] = [
-	{ name: 'title', label: 'Title', section: 'Build', kind: 'text', maxLength: 120, min: 3, always: true },
-	{ name: 'chassis', label: 'Chassis (frame, wheel size, year)', section: 'Build', kind: 'text', maxLength: 160 },
-	{ name: 'engineFamily', label: 'Engine family', section: 'Build', kind: 'text', maxLength: 120, hint: 'e.g. horizontal 50 cc two-stroke, 12-inch wheel frame' },
-	{ name: 'engineCycle', label: 'Cycle', section: 'Build', kind: 'select', options: opts(['two-stroke', 'two-stroke'], ['four-stroke', 'four-stroke']) },
-	{ name: 'cooling', label: 'Cooling', section: 'Build', kind: 'select', options: opts(['air', 'air-cooled'], ['liquid', 'liquid-cooled']) },
-	{ name: 'cylinderOrientation', label: 'Cylinder', section: 'Build', kind: 'select', options: opts(['horizontal', 'horizontal'], ['vertical', 'vertical']) },
+	{
+		name: 'title',
+		label: 'Title',
+		section: 'Build',
+		kind: 'text',
+		maxLength: 120,
+		min: 3,
+		always: true
+	},
+	{
+		name: 'chassis',
+		label: 'Chassis (frame, wheel size, year)',
+		section: 'Build',
+		kind: 'text',
+		maxLength: 160
+	},
+	{
+		name: 'engineFamily',
+		label: 'Engine family',
+		section: 'Build',
+		kind: 'text',
+		maxLength: 120,
+		hint: 'e.g. horizontal 50 cc two-stroke, 12-inch wheel frame'
+	},
+	{
+		name: 'engineCycle',
+		label: 'Cycle',
+		section: 'Build',
+		kind: 'select',
+		options: opts(['two-stroke', 'two-stroke'], ['four-stroke', 'four-stroke'])
+	},
+	{
+		name: 'cooling',
+		label: 'Cooling',
+		section: 'Build',
+		kind: 'select',
+		options: opts(['air', 'air-cooled'], ['liquid', 'liquid-cooled'])
+	},
+	{
+		name: 'cylinderOrientation',
+		label: 'Cylinder',
+		section: 'Build',
+		kind: 'select',
+		options: opts(['horizontal', 'horizontal'], ['vertical', 'vertical'])
+	},
 	{ name: 'brakeFront', label: 'Front brake', section: 'Brakes', kind: 'text', maxLength: 120 },
 	{ name: 'brakeRear', label: 'Rear brake', section: 'Brakes', kind: 'text', maxLength: 120 },
-	{ name: 'brakesUpgraded', label: 'Brakes upgraded for the extra speed', section: 'Brakes', kind: 'checkbox' },
-	{ name: 'currency', label: 'Currency of the parts list', section: 'Build', kind: 'select', options: CURRENCIES },
-	{ name: 'story', label: 'The story (Markdown)', section: 'Story', kind: 'textarea', maxLength: 20000, optional: true }
+	{
+		name: 'brakesUpgraded',
+		label: 'Brakes upgraded for the extra speed',
+		section: 'Brakes',
+		kind: 'checkbox'
+	},
+	{
+		name: 'currency',
+		label: 'Currency of the parts list',
+		section: 'Build',
+		kind: 'select',
+		options: CURRENCIES
+	},
+	{
+		name: 'story',
+		label: 'The story (Markdown)',
+		section: 'Story',
+		kind: 'textarea',
+		maxLength: 20000,
+		optional: true
+	}
 ];
 
 export const PART_FIELDS: Field[] = [
-	{ name: 'category', label: 'Category', section: 'Part', kind: 'select', options: PART_CATEGORIES },
-	{ name: 'name', label: 'Part', section: 'Part', kind: 'text', maxLength: 160, min: 2, always: true },
-	{ name: 'cost', label: 'Cost', section: 'Part', kind: 'number', min: 0, max: 100000, hint: 'In the build’s currency, e.g. 89.90' },
-	{ name: 'link', label: 'Link (http or https)', section: 'Part', kind: 'text', maxLength: 500, optional: true, check: checkLink },
-	{ name: 'setupId', label: 'First fitted in setup', section: 'Part', kind: 'select', options: [], optional: true }
+	{
+		name: 'category',
+		label: 'Category',
+		section: 'Part',
+		kind: 'select',
+		options: PART_CATEGORIES
+	},
+	{
+		name: 'name',
+		label: 'Part',
+		section: 'Part',
+		kind: 'text',
+		maxLength: 160,
+		min: 2,
+		always: true
+	},
+	{
+		name: 'cost',
+		label: 'Cost',
+		section: 'Part',
+		kind: 'number',
+		min: 0,
+		max: 100000,
+		hint: 'In the build’s currency, e.g. 89.90'
+	},
+	{
+		name: 'link',
+		label: 'Link (http or https)',
+		section: 'Part',
+		kind: 'text',
+		maxLength: 500,
+		optional: true,
+		check: checkLink
+	},
+	{
+		name: 'setupId',
+		label: 'First fitted in setup',
+		section: 'Part',
+		kind: 'select',
+		options: [],
+		optional: true
+	}
 ];

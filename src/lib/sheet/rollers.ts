@@ -17,7 +17,8 @@ export function parseRollers(text: string): Rollers {
 		if (g < 1 || g > 30) return { grams, problem: `${g} g is outside 1–30 g for one roller.` };
 		for (let i = 0; i < count; i++) grams.push(g);
 	}
-	if (grams.length < 2 || grams.length > 12) return { grams, problem: `${grams.length} rollers: a variator has 2 to 12 slots.` };
+	if (grams.length < 2 || grams.length > 12)
+		return { grams, problem: `${grams.length} rollers: a variator has 2 to 12 slots.` };
 	return { grams, problem: null };
 }
 

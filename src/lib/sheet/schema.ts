@@ -15,7 +15,10 @@ function numberSchema(f: Field, units: Units) {
 	const msg = `Between ${nice(lo)} and ${nice(hi)}${unit ? ' ' + unit : ''}.`;
 	// Rounding slack so a value converted for display converts back inside the range.
 	const slack = f.dim ? 10 ** -PLACES[f.dim][units] : 0;
-	let s = z.number({ error: 'Enter a number.' }).min(lo - slack, { error: msg }).max(hi + slack, { error: msg });
+	let s = z
+		.number({ error: 'Enter a number.' })
+		.min(lo - slack, { error: msg })
+		.max(hi + slack, { error: msg });
 	if (f.kind === 'int') s = s.int({ error: 'A whole number.' });
 	return s;
 }
@@ -27,7 +30,9 @@ function fieldSchema(f: Field, units: Units, mode: Mode): z.ZodType {
 			return z.boolean().default(false);
 		case 'select': {
 			const values = (f.options ?? []).map((o) => o.value);
-			return values.length ? z.enum(values as [string, ...string[]]).default(values[0]) : z.string().default('');
+			return values.length
+				? z.enum(values as [string, ...string[]]).default(values[0])
+				: z.string().default('');
 		}
 		case 'number':
 		case 'int': {
@@ -37,12 +42,25 @@ function fieldSchema(f: Field, units: Units, mode: Mode): z.ZodType {
 		case 'date':
 			return needed
 				? z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'A date like 2026-05-31.' })
-				: z.string().regex(/^(\d{4}-\d{2}-\d{2})?$/, { error: 'A date like 2026-05-31.' }).default('');
+				: z
+						.string()
+						.regex(/^(\d{4}-\d{2}-\d{2})?$/, { error: 'A date like 2026-05-31.' })
+						.default('');
 		default: {
-			let s = z.string().trim().max(f.maxLength ?? 200, { error: `At most ${f.maxLength ?? 200} characters.` });
-			if (needed) s = s.min(Math.max(1, f.min ?? 1), { error: f.min && f.min > 1 ? `At least ${f.min} characters.` : 'Needed.' });
+			let s = z
+				.string()
+				.trim()
+				.max(f.maxLength ?? 200, { error: `At most ${f.maxLength ?? 200} characters.` });
+			if (needed)
+				s = s.min(Math.max(1, f.min ?? 1), {
+					error: f.min && f.min > 1 ? `At least ${f.min} characters.` : 'Needed.'
+				});
 			const check = f.check;
-			return check ? s.refine((v) => !v || check(v) === null, { error: (iss) => check(String(iss.input)) ?? 'Not valid.' }) : s;
+			return check
+				? s.refine((v) => !v || check(v) === null, {
+						error: (iss) => check(String(iss.input)) ?? 'Not valid.'
+					})
+				: s;
 		}
 	}
 }
@@ -53,14 +71,21 @@ export function schemaFor(name: string, fields: Field[], units: Units, mode: Mod
 	const key = `${name}:${units}:${mode}`;
 	let s = cache.get(key);
 	if (!s) {
-		s = z.object({ units: z.enum(['metric', 'imperial']).default(units), ...Object.fromEntries(fields.map((f) => [f.name, fieldSchema(f, units, mode)])) });
+		s = z.object({
+			units: z.enum(['metric', 'imperial']).default(units),
+			...Object.fromEntries(fields.map((f) => [f.name, fieldSchema(f, units, mode)]))
+		});
 		cache.set(key, s);
 	}
 	return s;
 }
 
 /** Typed values → canonical units for storage. Empty optional values become null. */
-export function toStored(fields: Field[], values: SheetValues, units: Units): Record<string, string | number | boolean | null> {
+export function toStored(
+	fields: Field[],
+	values: SheetValues,
+	units: Units
+): Record<string, string | number | boolean | null> {
 	const out: Record<string, string | number | boolean | null> = {};
 	for (const f of fields) {
 		const v = values[f.name];
@@ -72,20 +97,31 @@ export function toStored(fields: Field[], values: SheetValues, units: Units): Re
 }
 
 /** Stored canonical values → what the form shows in `units`, rounded to what a person would type. */
-export function toForm(fields: Field[], stored: Record<string, unknown>, units: Units): SheetValues {
+export function toForm(
+	fields: Field[],
+	stored: Record<string, unknown>,
+	units: Units
+): SheetValues {
 	const out: SheetValues = { units };
 	for (const f of fields) {
 		const v = stored[f.name];
 		if (v === null || v === undefined) continue;
-		if (typeof v === 'number' && f.dim) out[f.name] = Number(toShown(v, f.dim, units).toFixed(PLACES[f.dim][units]));
+		if (typeof v === 'number' && f.dim)
+			out[f.name] = Number(toShown(v, f.dim, units).toFixed(PLACES[f.dim][units]));
 		else out[f.name] = v as string | number | boolean;
 	}
 	return out;
 }
 
 /** What must still be filled in before publishing: labels of the missing or wrong fields. */
-export function missingFor(name: string, fields: Field[], stored: Record<string, unknown>): string[] {
-	const r = schemaFor(name, fields, 'metric', 'complete').safeParse(toForm(fields, stored, 'metric'));
+export function missingFor(
+	name: string,
+	fields: Field[],
+	stored: Record<string, unknown>
+): string[] {
+	const r = schemaFor(name, fields, 'metric', 'complete').safeParse(
+		toForm(fields, stored, 'metric')
+	);
 	if (r.success) return [];
 	const names = new Set(r.error.issues.map((i) => String(i.path[0])));
 	return fields.filter((f) => names.has(f.name)).map((f) => f.label);

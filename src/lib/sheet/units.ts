@@ -43,11 +43,18 @@ export const PLACES: Record<Dim, Record<Units, number>> = {
 	pressure: { metric: 1, imperial: 2 }
 };
 
-export const toShown = (v: number, dim: Dim, units: Units) => (units === 'imperial' ? TO_IMPERIAL[dim](v) : v);
-export const toCanonical = (v: number, dim: Dim, units: Units) => (units === 'imperial' ? TO_METRIC[dim](v) : v);
+export const toShown = (v: number, dim: Dim, units: Units) =>
+	units === 'imperial' ? TO_IMPERIAL[dim](v) : v;
+export const toCanonical = (v: number, dim: Dim, units: Units) =>
+	units === 'imperial' ? TO_METRIC[dim](v) : v;
 
 /** A canonical value as the reader sees it, with its unit. */
-export function show(v: number | null | undefined, dim: Dim, units: Units, places?: number): string {
+export function show(
+	v: number | null | undefined,
+	dim: Dim,
+	units: Units,
+	places?: number
+): string {
 	if (v === null || v === undefined || !Number.isFinite(v)) return '—';
 	return `${toShown(v, dim, units).toFixed(places ?? PLACES[dim][units])} ${UNIT[dim][units]}`;
 }

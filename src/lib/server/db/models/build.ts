@@ -47,16 +47,32 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 				story: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
 				chassis: str,
 				engineFamily: str,
-				engineCycle: { type: DataTypes.ENUM('two-stroke', 'four-stroke'), allowNull: false, defaultValue: 'two-stroke' },
+				engineCycle: {
+					type: DataTypes.ENUM('two-stroke', 'four-stroke'),
+					allowNull: false,
+					defaultValue: 'two-stroke'
+				},
 				cooling: { type: DataTypes.ENUM('air', 'liquid'), allowNull: false, defaultValue: 'air' },
-				cylinderOrientation: { type: DataTypes.ENUM('horizontal', 'vertical'), allowNull: false, defaultValue: 'horizontal' },
+				cylinderOrientation: {
+					type: DataTypes.ENUM('horizontal', 'vertical'),
+					allowNull: false,
+					defaultValue: 'horizontal'
+				},
 				brakeFront: str,
 				brakeRear: str,
 				brakesUpgraded: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: 'EUR' },
-				publication: { type: DataTypes.ENUM('draft', 'published'), allowNull: false, defaultValue: 'draft' },
+				publication: {
+					type: DataTypes.ENUM('draft', 'published'),
+					allowNull: false,
+					defaultValue: 'draft'
+				},
 				publishedAt: DataTypes.DATE,
-				moderation: { type: DataTypes.ENUM('visible', 'hidden'), allowNull: false, defaultValue: 'visible' },
+				moderation: {
+					type: DataTypes.ENUM('visible', 'hidden'),
+					allowNull: false,
+					defaultValue: 'visible'
+				},
 				hiddenReason: DataTypes.STRING(500),
 				version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				bestSpeedKmh: DataTypes.DOUBLE,

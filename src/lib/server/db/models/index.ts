@@ -33,5 +33,16 @@ export function models() {
 		DeskNote.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 		ready = true;
 	}
-	return { User, Account, Session, VerificationToken, EmailToken, DeskNote, Build, Setup, Run, Part };
+	return {
+		User,
+		Account,
+		Session,
+		VerificationToken,
+		EmailToken,
+		DeskNote,
+		Build,
+		Setup,
+		Run,
+		Part
+	};
 }

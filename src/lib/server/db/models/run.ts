@@ -47,17 +47,31 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
 				buildId: { type: DataTypes.INTEGER, allowNull: false },
 				runOn: { type: DataTypes.DATEONLY, allowNull: false },
 				speedKmh: { type: real, allowNull: false },
-				method: { type: DataTypes.ENUM('gps-logger', 'phone-gps', 'radar', 'speedometer'), allowNull: false },
+				method: {
+					type: DataTypes.ENUM('gps-logger', 'phone-gps', 'radar', 'speedometer'),
+					allowNull: false
+				},
 				twoWay: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-				venue: { type: DataTypes.ENUM('closed-course', 'private-ground', 'other'), allowNull: false },
+				venue: {
+					type: DataTypes.ENUM('closed-course', 'private-ground', 'other'),
+					allowNull: false
+				},
 				elevationM: { type: real, allowNull: false },
 				tempC: { type: real, allowNull: false },
 				humidityPct: { type: real, allowNull: false },
 				pressureKpa: real,
-				pressureKind: { type: DataTypes.ENUM('sea-level', 'station'), allowNull: false, defaultValue: 'sea-level' },
+				pressureKind: {
+					type: DataTypes.ENUM('sea-level', 'station'),
+					allowNull: false,
+					defaultValue: 'sea-level'
+				},
 				chtCruiseC: real,
 				chtFullC: real,
-				chtSensor: { type: DataTypes.ENUM('plug-washer', 'head-stud', 'coolant'), allowNull: false, defaultValue: 'plug-washer' },
+				chtSensor: {
+					type: DataTypes.ENUM('plug-washer', 'head-stud', 'coolant'),
+					allowNull: false,
+					defaultValue: 'plug-washer'
+				},
 				riderMassKg: real,
 				accelSeconds: real,
 				accelTargetKmh: real,

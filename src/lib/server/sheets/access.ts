@@ -1,0 +1,38 @@
+import { error, type RequestEvent } from '@sveltejs/kit';
+import { roleAllows } from '../../roles';
+import * as builds from '../db/builds';
+import { requireUser } from '../guard';
+
+/**
+ * Who sees a build: anyone when published and visible; its owner always; an admin always; a
+ * moderator also when hidden. Everyone else gets 404, so a draft's existence is not revealed.
+ */
+export async function readBuild(event: RequestEvent, id: number) {
+	const b = await builds.read(id);
+	if (!b) error(404, 'No such build.');
+	const me = event.locals.user;
+	const mine = me?.id === b.ownerId;
+	const open = b.publication === 'published' && b.moderation === 'visible';
+	const staff =
+		me &&
+		(roleAllows(me.role, 'admin') ||
+			(b.moderation === 'hidden' &&
+				b.publication === 'published' &&
+				roleAllows(me.role, 'moderator')));
+	if (!open && !mine && !staff) error(404, 'No such build.');
+	return { build: b, canEdit: Boolean(mine || (me && roleAllows(me.role, 'admin'))) };
+}
+
+/** Only the owner or an admin edits; others see 403 if they can read the build, else 404. */
+export async function editBuild(event: RequestEvent, id: number) {
+	const me = requireUser(event);
+	const { build, canEdit } = await readBuild(event, id);
+	if (!canEdit) error(403, 'Only the builder can change this sheet.');
+	return { build, me };
+}
+
+export const idParam = (raw: string) => {
+	const n = Number(raw);
+	if (!Number.isInteger(n) || n <= 0) error(404, 'No such build.');
+	return n;
+};

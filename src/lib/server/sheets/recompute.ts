@@ -1,0 +1,82 @@
+import { QueryTypes } from 'sequelize';
+import { deriveRun, deriveSetup } from '../../sheet/derive';
+import { models } from '../db/models';
+
+const same = (a: number | null, b: number | null) =>
+	a === null ? b === null : b !== null && Math.abs(a - b) < 1e-9;
+
+/**
+ * Rewrites a setup's derived columns (and its runs' air values) from its configuration. Called
+ * after every save of a setup or a run, so the columns later queries rank on never go stale.
+ */
+export async function recomputeSetup(setupId: number): Promise<void> {
+	const { Setup, Run } = models();
+	const s = await Setup.findByPk(setupId);
+	if (!s) return;
+	const c = s.config;
+	const d = deriveSetup(c);
+	const runs = await Run.findAll({ where: { setupId } });
+	let best: (typeof runs)[number] | null = null;
+	let bestJet: number | null = null;
+	for (const r of runs) {
+		const air = deriveRun(r, c);
+		if (
+			!same(air.airDensity, r.airDensity) ||
+			!same(air.seaLevelJet, r.seaLevelJet) ||
+			!same(air.densityAltitudeM, r.densityAltitudeM)
+		) {
+			await Run.update(air, { where: { id: r.id } });
+		}
+		if (!best || r.speedKmh > best.speedKmh) {
+			best = r;
+			bestJet = air.seaLevelJet;
+		}
+	}
+	await Setup.update(
+		{
+			exhaustType: typeof c.exhaustType === 'string' ? c.exhaustType : null,
+			displacementCc: d.displacementCc,
+			carbBoreMm: typeof c.carbBore === 'number' ? c.carbBore : null,
+			mainJet: typeof c.mainJet === 'number' ? c.mainJet : null,
+			finalDriveRatio: d.finalDriveRatio,
+			overallRatio: d.overallRatio,
+			tyreCircumferenceMm: d.tyreCircumferenceMm,
+			rollerTotalG: d.rollerTotalG,
+			gearingLimitKmh: d.gearingLimitKmh,
+			bestRunKmh: best?.speedKmh ?? null,
+			bestRunId: best?.id ?? null,
+			seaLevelJet: bestJet
+		},
+		{ where: { id: setupId } }
+	);
+}
+
+/** Counts, parts total, best and stock-baseline speeds for the build list and the bench. */
+export async function recomputeBuild(buildId: number): Promise<void> {
+	const { Build } = models();
+	const [row] = await Build.sequelize!.query<{
+		setups: number;
+		runs: number;
+		parts: number | null;
+		best: number | null;
+		stock: number | null;
+	}>(
+		`SELECT
+			(SELECT COUNT(*) FROM setups WHERE build_id = :id) AS setups,
+			(SELECT COUNT(*) FROM runs WHERE build_id = :id) AS runs,
+			(SELECT SUM(cost_minor) FROM parts WHERE build_id = :id) AS parts,
+			(SELECT MAX(speed_kmh) FROM runs WHERE build_id = :id) AS best,
+			(SELECT s.best_run_kmh FROM setups s WHERE s.build_id = :id AND s.is_stock = 1 ORDER BY s.position LIMIT 1) AS stock`,
+		{ replacements: { id: buildId }, type: QueryTypes.SELECT }
+	);
+	await Build.update(
+		{
+			setupCount: Number(row.setups),
+			runCount: Number(row.runs),
+			partsTotalMinor: Number(row.parts ?? 0),
+			bestSpeedKmh: row.best === null ? null : Number(row.best),
+			stockSpeedKmh: row.stock === null ? null : Number(row.stock)
+		},
+		{ where: { id: buildId }, silent: true }
+	);
+}

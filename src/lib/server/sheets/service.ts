@@ -1,0 +1,140 @@
+import { BUILD_FIELDS } from '../../sheet/fields';
+import { SETUP_FIELDS } from '../../sheet/setup-fields';
+import { missingFor } from '../../sheet/schema';
+import * as builds from '../db/builds';
+import type { Build, Run } from '../db/models';
+import type { SetupConfig } from '../db/models/setup';
+import * as parts from '../db/parts';
+import * as runs from '../db/runs';
+import * as setups from '../db/setups';
+import { recomputeBuild, recomputeSetup } from './recompute';
+
+// The build-sheet rules shared by the form actions (and, later, the JSON API).
+
+type Stored = Record<string, string | number | boolean | null>;
+
+export async function saveSetup(
+	buildId: number,
+	stored: Stored,
+	existing?: { id: number; version: number }
+) {
+	const { changeNote, isStock, ...config } = stored;
+	const note = String(changeNote ?? '');
+	let id = existing?.id;
+	if (existing) {
+		if (
+			!(await setups.update(existing.id, existing.version, {
+				changeNote: note,
+				isStock: Boolean(isStock),
+				config: config as SetupConfig
+			}))
+		)
+			return { conflict: true as const };
+	} else {
+		id = (await setups.create(buildId, note, Boolean(isStock), config as SetupConfig)).id;
+	}
+	await recomputeSetup(id!);
+	await recomputeBuild(buildId);
+	return { id: id! };
+}
+
+/** A new setup starts as a copy of the latest one, with an empty "what changed". */
+export async function newSetupValues(buildId: number): Promise<Stored> {
+	const last = await setups.latest(buildId);
+	if (!last)
+		return {
+			changeNote: 'Stock baseline',
+			isStock: true,
+			jetNumbering: 'diameter',
+			exhaustType: 'stock',
+			lubrication: 'premix'
+		};
+	return { ...last.config, changeNote: '', isStock: false };
+}
+
+const RUN_COLUMNS: Record<string, keyof Run> = {
+	speed: 'speedKmh',
+	elevation: 'elevationM',
+	temp: 'tempC',
+	humidity: 'humidityPct',
+	pressure: 'pressureKpa',
+	chtCruise: 'chtCruiseC',
+	chtFull: 'chtFullC',
+	riderMass: 'riderMassKg',
+	accelTarget: 'accelTargetKmh'
+};
+
+export function runToColumns(stored: Stored): runs.RunValues {
+	const out: Record<string, unknown> = {};
+	for (const [k, v] of Object.entries(stored))
+		out[RUN_COLUMNS[k] ?? k] =
+			k === 'notes' ? (v ?? '') : k === 'plugReading' && v === '' ? null : v;
+	return out as runs.RunValues;
+}
+
+export function runFromColumns(r: Run): Stored {
+	const back = Object.fromEntries(Object.entries(RUN_COLUMNS).map(([form, col]) => [col, form]));
+	const out: Stored = {};
+	for (const [k, v] of Object.entries(r.get({ plain: true })))
+		out[back[k] ?? k] = v as Stored[string];
+	return out;
+}
+
+export async function saveRun(
+	buildId: number,
+	setupId: number,
+	stored: Stored,
+	existing?: { id: number; version: number }
+) {
+	const values = runToColumns(stored);
+	let id = existing?.id;
+	if (existing) {
+		if (!(await runs.update(existing.id, existing.version, { ...values, setupId } as never)))
+			return { conflict: true as const };
+	} else id = (await runs.create(buildId, setupId, values)).id;
+	await recomputeSetup(setupId);
+	await recomputeBuild(buildId);
+	return { id: id! };
+}
+
+export async function addPart(buildId: number, stored: Stored) {
+	await parts.create(buildId, {
+		category: String(stored.category),
+		name: String(stored.name),
+		costMinor: Math.round(Number(stored.cost ?? 0) * 100),
+		link: stored.link ? String(stored.link) : null,
+		setupId: stored.setupId ? Number(stored.setupId) : null
+	});
+	await recomputeBuild(buildId);
+}
+
+export async function removePart(buildId: number, partId: number) {
+	await parts.destroy(buildId, partId);
+	await recomputeBuild(buildId);
+}
+
+/** What stops a build from being published, in words; empty when it may go out. */
+export async function publishProblems(b: Build): Promise<string[]> {
+	const problems = missingFor('build-publish', BUILD_FIELDS, b.get({ plain: true })).map(
+		(l) => `Build: ${l}`
+	);
+	const list = await setups.listForBuild(b.id);
+	if (list.length === 0) problems.push('At least one setup is needed.');
+	for (const s of list) {
+		for (const l of missingFor('setup-publish', SETUP_FIELDS, {
+			...s.config,
+			changeNote: s.changeNote,
+			isStock: s.isStock
+		})) {
+			problems.push(`Setup ${s.position} (${s.changeNote}): ${l}`);
+		}
+	}
+	return problems;
+}
+
+export async function setPublication(b: Build, state: 'draft' | 'published') {
+	return builds.update(b.id, b.version, {
+		publication: state,
+		publishedAt: state === 'published' ? (b.publishedAt ?? new Date()) : b.publishedAt
+	});
+}

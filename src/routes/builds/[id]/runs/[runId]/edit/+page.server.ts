@@ -1,0 +1,52 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { message } from 'sveltekit-superforms';
+import * as runs from '$lib/server/db/runs';
+import { editBuild, idParam } from '$lib/server/sheets/access';
+import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
+import { recomputeBuild, recomputeSetup } from '$lib/server/sheets/recompute';
+import { runFromColumns, saveRun } from '$lib/server/sheets/service';
+import { unitsFor } from '$lib/server/sheets/units';
+import { RUN_FIELDS } from '$lib/sheet/run-fields';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
+
+async function target(event: RequestEvent) {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const run = await runs.read(build.id, Number(event.params.runId));
+	if (!run) error(404, 'No such run.');
+	return { build, run };
+}
+
+export const load: PageServerLoad = async (event) => {
+	const { build, run } = await target(event);
+	const units = unitsFor(event);
+	const form = await sheetForm('run', RUN_FIELDS, units, runFromColumns(run), 'complete');
+	return {
+		units,
+		form,
+		build: { id: build.id, title: build.title },
+		run: { id: run.id, version: run.version }
+	};
+};
+
+export const actions: Actions = {
+	save: async (event) => {
+		const { build, run } = await target(event);
+		const { form, stored, version } = await readSheetForm(
+			event.request,
+			'run',
+			RUN_FIELDS,
+			'complete'
+		);
+		if (!form.valid) return fail(400, { form });
+		const r = await saveRun(build.id, run.setupId, stored, { id: run.id, version });
+		if ('conflict' in r) return message(form, CONFLICT, { status: 409 });
+		redirect(303, `/builds/${build.id}/edit`);
+	},
+	remove: async (event) => {
+		const { build, run } = await target(event);
+		await runs.destroy(run.id);
+		await recomputeSetup(run.setupId);
+		await recomputeBuild(build.id);
+		redirect(303, `/builds/${build.id}/edit`);
+	}
+};
