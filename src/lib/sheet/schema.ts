@@ -80,7 +80,7 @@ export function schemaFor(name: string, fields: Field[], units: Units, mode: Mod
 	return s;
 }
 
-/** Typed values → canonical units for storage. Empty optional values become null. */
+/** Typed values → canonical units for storage. Empty numbers and dates become null, empty text ''. */
 export function toStored(
 	fields: Field[],
 	values: SheetValues,
@@ -89,7 +89,9 @@ export function toStored(
 	const out: Record<string, string | number | boolean | null> = {};
 	for (const f of fields) {
 		const v = values[f.name];
-		if (v === undefined || v === '') out[f.name] = f.kind === 'checkbox' ? false : null;
+		if (v === undefined || v === '')
+			out[f.name] =
+				f.kind === 'checkbox' ? false : f.kind === 'text' || f.kind === 'textarea' ? '' : null;
 		else if (typeof v === 'number' && f.dim) out[f.name] = toCanonical(v, f.dim, units);
 		else out[f.name] = v;
 	}

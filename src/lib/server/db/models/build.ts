@@ -38,15 +38,16 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 	declare owner?: NonAttribute<User>;
 
 	static setup(sequelize: Sequelize) {
-		const str = { type: DataTypes.STRING, allowNull: false, defaultValue: '' };
+		// A fresh object per attribute: Sequelize writes the column name into each definition.
+		const str = () => ({ type: DataTypes.STRING, allowNull: false, defaultValue: '' });
 		Build.init(
 			{
 				id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
 				ownerId: { type: DataTypes.UUID, allowNull: false },
 				title: { type: DataTypes.STRING(120), allowNull: false },
 				story: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-				chassis: str,
-				engineFamily: str,
+				chassis: str(),
+				engineFamily: str(),
 				engineCycle: {
 					type: DataTypes.ENUM('two-stroke', 'four-stroke'),
 					allowNull: false,
@@ -58,8 +59,8 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 					allowNull: false,
 					defaultValue: 'horizontal'
 				},
-				brakeFront: str,
-				brakeRear: str,
+				brakeFront: str(),
+				brakeRear: str(),
 				brakesUpgraded: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: 'EUR' },
 				publication: {
