@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import { closeDb } from '../src/lib/server/db/connection';
 import * as users from '../src/lib/server/db/users';
 import type { Role } from '../src/lib/roles';
+import { seedBuilds } from './demo/builds';
 
 type Person = { email: string; name: string; role: Role; units?: 'metric' | 'imperial' };
 const demo = JSON.parse(
@@ -19,4 +20,13 @@ for (const p of demo.people) {
 	added++;
 }
 console.log(`  ${added} demo accounts added, ${demo.people.length - added} already there`);
+
+const owners: string[] = [];
+for (const p of demo.people) {
+	if (p.role !== 'member' && p.role !== 'shop') continue;
+	const u = await users.readByEmail(p.email);
+	if (u) owners.push(u.id);
+}
+const builds = await seedBuilds(owners);
+console.log(`  ${builds} demo build sheets added`);
 await closeDb();

@@ -56,11 +56,12 @@ function fieldSchema(f: Field, units: Units, mode: Mode): z.ZodType {
 					error: f.min && f.min > 1 ? `At least ${f.min} characters.` : 'Needed.'
 				});
 			const check = f.check;
-			return check
+			const checked = check
 				? s.refine((v) => !v || check(v) === null, {
 						error: (iss) => check(String(iss.input)) ?? 'Not valid.'
 					})
 				: s;
+			return needed ? checked : checked.default('');
 		}
 	}
 }
