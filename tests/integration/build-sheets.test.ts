@@ -62,8 +62,8 @@ async function draftBuild(ownerId: string) {
 	});
 }
 
-const status = async (p: Promise<unknown>) =>
-	p.then(
+const status = async (p: unknown) =>
+	Promise.resolve(p).then(
 		() => 200,
 		(e: { status?: number }) => e.status ?? 500
 	);
