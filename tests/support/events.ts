@@ -14,6 +14,7 @@ export function fakeEvent(opts: {
 		for (const [k, v] of Object.entries(opts.form)) fd.set(k, v);
 		request = new Request(url, { method: 'POST', body: fd });
 	}
+	if (opts.request) request = new Request(url, opts.request);
 	return {
 		url,
 		request,

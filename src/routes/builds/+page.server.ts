@@ -2,7 +2,7 @@ import * as builds from '$lib/server/db/builds';
 import { unitsFor } from '$lib/server/sheets/units';
 import type { PageServerLoad } from './$types';
 
-// Public: anyone may browse published sheets.
+// Public: anyone may browse published sheets. The same cursor pages as GET /api/builds.
 export const load: PageServerLoad = async (event) => {
 	const q = event.url.searchParams;
 	const filters = {
@@ -14,26 +14,12 @@ export const load: PageServerLoad = async (event) => {
 			: undefined,
 		withRuns: q.get('runs') === '1',
 		q: q.get('q')?.trim().slice(0, 80) || undefined,
-		page: Math.max(1, Number(q.get('page')) || 1)
+		sort: q.get('sort') === 'fastest' ? ('fastest' as const) : ('newest' as const)
 	};
-	const { rows, count, page, pages } = await builds.listPublished(filters);
-	return {
-		units: unitsFor(event),
-		filters: { ...filters, q: filters.q ?? '' },
-		count,
-		page,
-		pages,
-		builds: rows.map((b) => ({
-			id: b.id,
-			title: b.title,
-			owner: b.owner?.name ?? 'a member',
-			engineFamily: b.engineFamily,
-			bestSpeedKmh: b.bestSpeedKmh,
-			stockSpeedKmh: b.stockSpeedKmh,
-			partsTotalMinor: b.partsTotalMinor,
-			currency: b.currency,
-			setupCount: b.setupCount,
-			runCount: b.runCount
-		}))
-	};
+	const page = await builds.listCursor({
+		...filters,
+		cursor: q.get('cursor') ?? undefined,
+		limit: 24
+	});
+	return { units: unitsFor(event), filters: { ...filters, q: filters.q ?? '' }, ...page };
 };

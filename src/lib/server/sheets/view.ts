@@ -7,14 +7,16 @@ import * as runs from '../db/runs';
 import * as setups from '../db/setups';
 import * as users from '../db/users';
 import { renderMarkdown } from '../markdown';
+import { listPhotos } from './photos';
 
 /** Everything the build page shows, as plain data: derived values come from the tuning module. */
 export async function buildView(b: Build, units: Units) {
-	const [setupRows, runRows, partRows, owner] = await Promise.all([
+	const [setupRows, runRows, partRows, owner, photoRows] = await Promise.all([
 		setups.listForBuild(b.id),
 		runs.listForBuild(b.id),
 		parts.listForBuild(b.id),
-		users.read(b.ownerId)
+		users.read(b.ownerId),
+		listPhotos(b.id)
 	]);
 	const stock = b.stockSpeedKmh;
 	let prev: Record<string, unknown> | null = null;
@@ -93,6 +95,15 @@ export async function buildView(b: Build, units: Units) {
 			costMinor: p.costMinor,
 			link: p.link,
 			setupId: p.setupId
+		})),
+		photos: photoRows.map((p) => ({
+			id: p.id,
+			caption: p.caption,
+			setupId: p.setupId,
+			width: p.width,
+			height: p.height,
+			display: `/api/photos/${p.id}/display`,
+			thumb: `/api/photos/${p.id}/thumb`
 		})),
 		costPerKmhMinor: gain !== null && gain > 0 ? b.partsTotalMinor / gain : null,
 		gainKmh: gain

@@ -1,3 +1,5 @@
+import QRCode from 'qrcode';
+import { env } from '$lib/server/env';
 import { idParam, readBuild } from '$lib/server/sheets/access';
 import { unitsFor } from '$lib/server/sheets/units';
 import { buildView } from '$lib/server/sheets/view';
@@ -6,5 +8,8 @@ import type { PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const { build, canEdit } = await readBuild(event, idParam(event.params.id));
 	const units = unitsFor(event);
-	return { units, canEdit, ...(await buildView(build, units)) };
+	const link = new URL(`/builds/${build.id}`, env().ORIGIN).toString();
+	// A small QR code for the printed sheet, so a paper copy leads back to the live one.
+	const qr = await QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' });
+	return { units, canEdit, link, qr, ...(await buildView(build, units)) };
 };

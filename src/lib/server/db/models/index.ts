@@ -5,11 +5,24 @@ import { Build } from './build';
 import { DeskNote } from './desk-note';
 import { EmailToken } from './email-token';
 import { Part } from './part';
+import { Photo } from './photo';
 import { Run } from './run';
 import { Setup } from './setup';
 import { User } from './user';
 
-export { Account, Build, DeskNote, EmailToken, Part, Run, Session, Setup, User, VerificationToken };
+export {
+	Account,
+	Build,
+	DeskNote,
+	EmailToken,
+	Part,
+	Photo,
+	Run,
+	Session,
+	Setup,
+	User,
+	VerificationToken
+};
 
 let ready = false;
 
@@ -25,6 +38,7 @@ export function models() {
 		Setup.setup(sequelize);
 		Run.setup(sequelize);
 		Part.setup(sequelize);
+		Photo.setup(sequelize);
 		Build.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
 		Build.hasMany(Setup, { foreignKey: 'buildId', as: 'setups' });
 		Setup.hasMany(Run, { foreignKey: 'setupId', as: 'runs' });
@@ -43,6 +57,7 @@ export function models() {
 		Build,
 		Setup,
 		Run,
-		Part
+		Part,
+		Photo
 	};
 }

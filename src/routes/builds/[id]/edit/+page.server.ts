@@ -7,6 +7,15 @@ import * as runs from '$lib/server/db/runs';
 import * as setups from '$lib/server/db/setups';
 import { editBuild, idParam } from '$lib/server/sheets/access';
 import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
+import {
+	addPhoto,
+	listPhotos,
+	PhotoError,
+	removeBuildPhotos,
+	removePhoto,
+	reorderPhotos,
+	updatePhoto
+} from '$lib/server/sheets/photos';
 import { addPart, publishProblems, removePart, setPublication } from '$lib/server/sheets/service';
 import { unitsFor } from '$lib/server/sheets/units';
 import { BUILD_FIELDS, PART_FIELDS } from '$lib/sheet/fields';
@@ -18,10 +27,11 @@ const mine = (event: RequestEvent) => editBuild(event, idParam(event.params.id))
 export const load: PageServerLoad = async (event) => {
 	const { build } = await mine(event);
 	const units = unitsFor(event);
-	const [setupRows, runRows, partRows, form, partForm] = await Promise.all([
+	const [setupRows, runRows, partRows, photoRows, form, partForm] = await Promise.all([
 		setups.listForBuild(build.id),
 		runs.listForBuild(build.id),
 		parts.listForBuild(build.id),
+		listPhotos(build.id),
 		sheetForm('build', BUILD_FIELDS, units, build.get({ plain: true })),
 		superValidate(zod4(schemaFor('part', PART_FIELDS, units, 'complete')))
 	]);
@@ -57,6 +67,12 @@ export const load: PageServerLoad = async (event) => {
 			costMinor: p.costMinor,
 			setupId: p.setupId
 		})),
+		photos: photoRows.map((p) => ({
+			id: p.id,
+			caption: p.caption,
+			setupId: p.setupId,
+			thumb: `/api/photos/${p.id}/thumb`
+		})),
 		problems: build.publication === 'draft' ? await publishProblems(build) : []
 	};
 };
@@ -83,6 +99,55 @@ export const actions: Actions = {
 		await removePart(build.id, id);
 		redirect(303, `/builds/${build.id}/edit#parts`);
 	},
+	// The no-JavaScript way in; with JavaScript the page uploads to the API with a progress bar.
+	addPhoto: async (event) => {
+		const { build } = await mine(event);
+		const fd = await event.request.formData();
+		const file = fd.get('file');
+		if (!(file instanceof File) || file.size === 0)
+			return fail(400, { photoProblem: 'Choose a photo to upload.' });
+		try {
+			await addPhoto(build.id, new Uint8Array(await file.arrayBuffer()), {
+				caption: String(fd.get('caption') ?? ''),
+				setupId: Number(fd.get('setupId')) || null
+			});
+		} catch (e) {
+			if (e instanceof PhotoError)
+				return fail(e.status, {
+					photoProblem: e.message,
+					caption: String(fd.get('caption') ?? '')
+				});
+			throw e;
+		}
+		redirect(303, `/builds/${build.id}/edit#photos`);
+	},
+	updatePhoto: async (event) => {
+		const { build } = await mine(event);
+		const fd = await event.request.formData();
+		await updatePhoto(build.id, Number(fd.get('photoId')), {
+			caption: String(fd.get('caption') ?? '')
+				.trim()
+				.slice(0, 300),
+			setupId: Number(fd.get('setupId')) || null
+		});
+		redirect(303, `/builds/${build.id}/edit#photos`);
+	},
+	movePhoto: async (event) => {
+		const { build } = await mine(event);
+		const fd = await event.request.formData();
+		const id = Number(fd.get('photoId'));
+		const ids = (await listPhotos(build.id)).map((p) => p.id);
+		const i = ids.indexOf(id);
+		const j = i + (fd.get('direction') === 'up' ? -1 : 1);
+		if (i >= 0 && j >= 0 && j < ids.length) [ids[i], ids[j]] = [ids[j], ids[i]];
+		await reorderPhotos(build.id, ids);
+		redirect(303, `/builds/${build.id}/edit#photos`);
+	},
+	removePhoto: async (event) => {
+		const { build } = await mine(event);
+		await removePhoto(build.id, Number((await event.request.formData()).get('photoId')));
+		redirect(303, `/builds/${build.id}/edit#photos`);
+	},
 	publish: async (event) => {
 		const { build } = await mine(event);
 		const problems = await publishProblems(build);
@@ -97,6 +162,7 @@ export const actions: Actions = {
 	},
 	destroy: async (event) => {
 		const { build } = await mine(event);
+		await removeBuildPhotos(build.id);
 		await builds.destroy(build.id);
 		redirect(303, '/bench');
 	}

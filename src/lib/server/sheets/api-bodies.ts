@@ -1,0 +1,20 @@
+import { z } from 'zod';
+import type { Field } from '../../sheet/fields';
+import { schemaFor, toStored, type Mode } from '../../sheet/schema';
+import { parse } from '../api';
+
+/**
+ * A JSON body for a sheet entity, checked with the same generated schema as its form, in the
+ * units it names (metric unless `units: "imperial"`), and converted to canonical units.
+ */
+export function sheetBody(name: string, fields: Field[], body: unknown, mode: Mode) {
+	const units =
+		body && typeof body === 'object' && (body as { units?: unknown }).units === 'imperial'
+			? 'imperial'
+			: 'metric';
+	const data = parse(schemaFor(name, fields, units, mode), body) as Record<string, never>;
+	return toStored(fields, data, units);
+}
+
+export const versionOf = (body: unknown) =>
+	parse(z.object({ version: z.number().int().min(0) }), body).version;

@@ -1,0 +1,47 @@
+import { json } from '@sveltejs/kit';
+import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
+import * as builds from '$lib/server/db/builds';
+import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
+import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
+import { exportBuild } from '$lib/server/sheets/export';
+import { removeBuildPhotos } from '$lib/server/sheets/photos';
+import { BUILD_FIELDS } from '$lib/sheet/fields';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = api(async (event) => {
+	const { build } = await readBuild(event, idParam(event.params.id));
+	return json({
+		id: build.id,
+		version: build.version,
+		publication: build.publication,
+		sheet: await exportBuild(build)
+	});
+});
+
+export const PATCH: RequestHandler = api(async (event) => {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const body = await readJson(event.request);
+	const version = versionOf(body);
+	const stored = sheetBody(
+		'build',
+		BUILD_FIELDS,
+		{ ...(await fullBuild(build.id)), ...(body as object) },
+		'draft'
+	);
+	if (!(await builds.update(build.id, version, stored as builds.BuildPatch)))
+		throw new ApiFailure(409, 'The build changed since that version; fetch it again.');
+	return json({ id: build.id, version: version + 1 });
+});
+
+export const DELETE: RequestHandler = api(async (event) => {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	await removeBuildPhotos(build.id);
+	await builds.destroy(build.id);
+	return noContent();
+});
+
+/** PATCH is partial: the stored values fill whatever the body leaves out. */
+async function fullBuild(id: number) {
+	const b = await builds.read(id);
+	return Object.fromEntries(BUILD_FIELDS.map((f) => [f.name, b?.get(f.name as never)]));
+}

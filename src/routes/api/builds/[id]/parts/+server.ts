@@ -1,0 +1,40 @@
+import { json } from '@sveltejs/kit';
+import { api, created, readJson } from '$lib/server/api';
+import * as parts from '$lib/server/db/parts';
+import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
+import { sheetBody } from '$lib/server/sheets/api-bodies';
+import { addPart } from '$lib/server/sheets/service';
+import { PART_FIELDS } from '$lib/sheet/fields';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = api(async (event) => {
+	const { build } = await readBuild(event, idParam(event.params.id));
+	const rows = await parts.listForBuild(build.id);
+	return json({
+		currency: build.currency,
+		parts: rows.map((p) => ({
+			id: p.id,
+			category: p.category,
+			name: p.name,
+			costMinor: p.costMinor,
+			link: p.link,
+			setupId: p.setupId
+		}))
+	});
+});
+
+export const POST: RequestHandler = api(async (event) => {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const body = (await readJson(event.request)) as Record<string, unknown>;
+	const stored = sheetBody(
+		'part',
+		PART_FIELDS,
+		{
+			...body,
+			setupId: body?.setupId === undefined || body?.setupId === null ? '' : String(body.setupId)
+		},
+		'complete'
+	);
+	await addPart(build.id, stored);
+	return created({ ok: true });
+});

@@ -1,0 +1,15 @@
+import { z } from 'zod';
+import { api, noContent, parse, readJson } from '$lib/server/api';
+import { editBuild, idParam } from '$lib/server/sheets/access';
+import { reorderPhotos } from '$lib/server/sheets/photos';
+import type { RequestHandler } from './$types';
+
+export const PUT: RequestHandler = api(async (event) => {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const { ids } = parse(
+		z.object({ ids: z.array(z.number().int().positive()).max(50) }),
+		await readJson(event.request)
+	);
+	await reorderPhotos(build.id, ids);
+	return noContent();
+});

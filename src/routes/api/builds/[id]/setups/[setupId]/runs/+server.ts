@@ -1,0 +1,27 @@
+import { error, json } from '@sveltejs/kit';
+import { api, created, readJson } from '$lib/server/api';
+import * as runs from '$lib/server/db/runs';
+import * as setups from '$lib/server/db/setups';
+import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
+import { sheetBody } from '$lib/server/sheets/api-bodies';
+import { saveRun } from '$lib/server/sheets/service';
+import { RUN_FIELDS } from '$lib/sheet/run-fields';
+import type { RequestHandler } from './$types';
+
+// The build page's setup history fetches its runs from here in the browser.
+export const GET: RequestHandler = api(async (event) => {
+	const { build } = await readBuild(event, idParam(event.params.id));
+	const setup = await setups.read(build.id, Number(event.params.setupId));
+	if (!setup) error(404, 'No such setup.');
+	const rows = (await runs.listForBuild(build.id)).filter((r) => r.setupId === setup.id);
+	return json({ runs: rows.map((r) => r.get({ plain: true })) });
+});
+
+export const POST: RequestHandler = api(async (event) => {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const setup = await setups.read(build.id, Number(event.params.setupId));
+	if (!setup) error(404, 'No such setup.');
+	const stored = sheetBody('run', RUN_FIELDS, await readJson(event.request), 'complete');
+	const r = (await saveRun(build.id, setup.id, stored)) as { id: number };
+	return created({ id: r.id });
+});
