@@ -6,6 +6,7 @@ export function fakeEvent(opts: {
 	params?: Record<string, string>;
 	path?: string;
 	form?: Record<string, string>;
+	request?: { method: string; body?: BodyInit; headers?: Record<string, string> };
 }) {
 	const url = new URL(`http://127.0.0.1${opts.path ?? '/'}`);
 	let request = new Request(url);
