@@ -297,7 +297,7 @@ describe('status codes of the JSON API', () => {
 		const params = { id: String(b.id) };
 		const upload = (bytes: Uint8Array, name: string) => {
 			const fd = new FormData();
-			fd.set('file', new File([bytes], name, { type: 'image/jpeg' }));
+			fd.set('file', new File([bytes as Uint8Array<ArrayBuffer>], name, { type: 'image/jpeg' }));
 			return call(
 				photoPost,
 				fakeEvent({
