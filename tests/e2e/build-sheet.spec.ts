@@ -93,7 +93,9 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 
 	await page.getByRole('button', { name: 'Publish the build sheet' }).click();
 	await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
-	await expect(page.getByText('Tessly Urbano 12-inch (2018)').filter({ visible: true }).first()).toBeVisible();
+	await expect(
+		page.getByText('Tessly Urbano 12-inch (2018)').filter({ visible: true }).first()
+	).toBeVisible();
 	await expect(page.getByText('190 mm disc').filter({ visible: true }).first()).toBeVisible();
 	// Displacement π/4 · 47² · 39.2 = 68.0 cc; the diff names the changed fields.
 	await expect(page.getByRole('row', { name: /Displacement 68\.0 cc/ })).toBeVisible();
@@ -104,7 +106,9 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(changes).toContainText('expansion chamber');
 	// (189.00 + 149.50) / (98 − 52) km/h = 7.36 per km/h.
 	await expect(page.getByTestId('cost-per-speed')).toHaveText('€7.36');
-	await expect(page.getByText("above the tyre's speed symbol").filter({ visible: true }).first()).toBeVisible();
+	await expect(
+		page.getByText("above the tyre's speed symbol").filter({ visible: true }).first()
+	).toBeVisible();
 
 	await page.getByRole('link', { name: 'switch to imperial' }).click();
 	await expect(page.getByText('60.9 mph').filter({ visible: true }).first()).toBeVisible(); // 98 km/h ÷ 1.609344
