@@ -139,3 +139,52 @@ test.describe('without JavaScript', () => {
 		await expect(page.getByRole('row', { name: /Displacement 51\.8 cc/ })).toBeVisible();
 	});
 });
+
+test('an exported sheet imports as a new draft from the new-build page; a broken one lists its problems', async ({
+	page
+}) => {
+	const u = await makeUser();
+	await signInWithPassword(page, u.email, u.password);
+	await expect(page.getByRole('banner')).toContainText('Sign out');
+	const list = await (await page.request.get('/api/builds?sort=fastest&limit=1')).json();
+	const source = list.builds[0];
+	const exported = await (await page.request.get(`/api/builds/${source.id}/export`)).json();
+	await page.goto('/builds/new');
+	await page.getByLabel('Exported sheet (.json)').setInputFiles({
+		name: 'sheet.json',
+		mimeType: 'application/json',
+		buffer: Buffer.from(JSON.stringify(exported))
+	});
+	await page.getByRole('button', { name: 'Import as a new draft' }).click();
+	await expect(page).toHaveURL(/\/builds\/\d+\/edit$/);
+	await expect(page.getByRole('heading', { level: 1 })).toContainText(source.title);
+	await expect(page.getByRole('heading', { level: 1 })).toContainText('[draft]');
+
+	await page.goto('/builds/new');
+	const broken = {
+		...exported,
+		build: { ...exported.build, title: '' },
+		setups: [{ changeNote: 'x', config: { bore: 500 } }]
+	};
+	await page.getByLabel('Exported sheet (.json)').setInputFiles({
+		name: 'sheet.json',
+		mimeType: 'application/json',
+		buffer: Buffer.from(JSON.stringify(broken))
+	});
+	await page.getByRole('button', { name: 'Import as a new draft' }).click();
+	const problems = page.getByRole('alert');
+	await expect(problems).toContainText('build.title');
+	await expect(problems).toContainText('setups.0.config.bore');
+});
+
+test('the public list loads more sheets from the JSON API in the browser', async ({ page }) => {
+	await page.goto('/builds');
+	await page.waitForLoadState('networkidle');
+	const cards = page.getByRole('article');
+	await expect(cards).toHaveCount(24);
+	const api = page.waitForResponse((r) => r.url().includes('/api/builds?') && r.status() === 200);
+	await page.getByRole('link', { name: 'Load more sheets' }).click();
+	await api;
+	await expect.poll(() => cards.count()).toBeGreaterThan(24);
+	await expect(page).toHaveURL('/builds'); // fetched in place, no navigation
+});

@@ -6,6 +6,7 @@ import * as builds from '../../src/lib/server/db/builds';
 import { exportBuild } from '../../src/lib/server/sheets/export';
 import { saveRun, saveSetup } from '../../src/lib/server/sheets/service';
 import { addPhoto } from '../../src/lib/server/sheets/photos';
+import { objectExists } from '../../src/lib/server/storage';
 import { GET as photoGet } from '../../src/routes/api/photos/[id]/[size]/+server';
 import { POST as buildsPost } from '../../src/routes/api/builds/+server';
 import {
@@ -337,6 +338,19 @@ describe('status codes of the JSON API', () => {
 		expect(await get(asUser(other))).toBe(404);
 		expect(await get(null)).toBe(404);
 		expect(await get(asUser(owner))).toBe(200);
+
+		// Deleting the build deletes its photos' objects from the store.
+		const keys = [photo.displayKey, photo.thumbKey];
+		for (const k of keys) expect(await objectExists(k)).toBe(true);
+		expect(
+			(
+				await call(
+					buildDelete,
+					fakeEvent({ user: asUser(owner), params, path: `/api/builds/${b.id}` })
+				)
+			).status
+		).toBe(204);
+		for (const k of keys) expect(await objectExists(k)).toBe(false);
 	});
 });
 
