@@ -9,13 +9,14 @@ export type Health = {
 	down: ServiceName[];
 };
 
-const withTimeout = <T>(p: Promise<T>, ms: number) =>
-	Promise.race([
-		p,
-		new Promise<never>((_, reject) =>
-			setTimeout(() => reject(new Error(`no answer in ${ms} ms`)), ms)
-		)
-	]);
+/** Rejects after `ms` so one hung service cannot hold the answer; the timer is cleared either way. */
+function withTimeout<T>(p: Promise<T>, ms: number): Promise<T> {
+	let timer: ReturnType<typeof setTimeout> | undefined;
+	const timeout = new Promise<never>((_, reject) => {
+		timer = setTimeout(() => reject(new Error(`no answer in ${ms} ms`)), ms);
+	});
+	return Promise.race([p, timeout]).finally(() => clearTimeout(timer));
+}
 
 const probes: Record<ServiceName, () => Promise<unknown>> = {
 	database: () => db().query('SELECT 1'),

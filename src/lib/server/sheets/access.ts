@@ -1,6 +1,8 @@
 import { error, type RequestEvent } from '@sveltejs/kit';
 import { roleAllows } from '../../roles';
 import * as builds from '../db/builds';
+import * as runs from '../db/runs';
+import * as setups from '../db/setups';
 import { requireUser } from '../guard';
 
 /**
@@ -36,3 +38,19 @@ export const idParam = (raw: string) => {
 	if (!Number.isInteger(n) || n <= 0) error(404, 'No such build.');
 	return n;
 };
+
+/** A setup of a build the signed-in member may change, from `params.id` and `params.setupId`. */
+export async function editSetup(event: RequestEvent & { params: { id: string; setupId: string } }) {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const setup = await setups.read(build.id, Number(event.params.setupId));
+	if (!setup) error(404, 'No such setup.');
+	return { build, setup };
+}
+
+/** A run of a build the signed-in member may change, from `params.id` and `params.runId`. */
+export async function editRun(event: RequestEvent & { params: { id: string; runId: string } }) {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const run = await runs.read(build.id, Number(event.params.runId));
+	if (!run) error(404, 'No such run.');
+	return { build, run };
+}

@@ -1,22 +1,15 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
 import * as setups from '$lib/server/db/setups';
-import { editBuild, idParam } from '$lib/server/sheets/access';
+import { editSetup } from '$lib/server/sheets/access';
 import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
 import { recomputeBuild } from '$lib/server/sheets/recompute';
 import { saveSetup } from '$lib/server/sheets/service';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
-import type { RequestEvent, RequestHandler } from './$types';
-
-async function target(event: RequestEvent) {
-	const { build } = await editBuild(event, idParam(event.params.id));
-	const setup = await setups.read(build.id, Number(event.params.setupId));
-	if (!setup) error(404, 'No such setup.');
-	return { build, setup };
-}
+import type { RequestHandler } from './$types';
 
 export const PATCH: RequestHandler = api(async (event) => {
-	const { build, setup } = await target(event);
+	const { build, setup } = await editSetup(event);
 	const body = await readJson(event.request);
 	const version = versionOf(body);
 	const stored = sheetBody(
@@ -32,7 +25,7 @@ export const PATCH: RequestHandler = api(async (event) => {
 });
 
 export const DELETE: RequestHandler = api(async (event) => {
-	const { build, setup } = await target(event);
+	const { build, setup } = await editSetup(event);
 	await setups.destroy(setup.id);
 	await recomputeBuild(build.id);
 	return noContent();

@@ -1,23 +1,16 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import { message } from 'sveltekit-superforms';
 import * as runs from '$lib/server/db/runs';
-import { editBuild, idParam } from '$lib/server/sheets/access';
+import { editRun } from '$lib/server/sheets/access';
 import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
 import { recomputeBuild, recomputeSetup } from '$lib/server/sheets/recompute';
 import { runFromColumns, saveRun } from '$lib/server/sheets/service';
 import { unitsFor } from '$lib/server/sheets/units';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
-import type { Actions, PageServerLoad, RequestEvent } from './$types';
-
-async function target(event: RequestEvent) {
-	const { build } = await editBuild(event, idParam(event.params.id));
-	const run = await runs.read(build.id, Number(event.params.runId));
-	if (!run) error(404, 'No such run.');
-	return { build, run };
-}
+import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const { build, run } = await target(event);
+	const { build, run } = await editRun(event);
 	const units = unitsFor(event);
 	const form = await sheetForm('run', RUN_FIELDS, units, runFromColumns(run), 'complete');
 	return {
@@ -30,7 +23,7 @@ export const load: PageServerLoad = async (event) => {
 
 export const actions: Actions = {
 	save: async (event) => {
-		const { build, run } = await target(event);
+		const { build, run } = await editRun(event);
 		const { form, stored, version } = await readSheetForm(
 			event.request,
 			'run',
@@ -43,7 +36,7 @@ export const actions: Actions = {
 		redirect(303, `/builds/${build.id}/edit`);
 	},
 	remove: async (event) => {
-		const { build, run } = await target(event);
+		const { build, run } = await editRun(event);
 		await runs.destroy(run.id);
 		await recomputeSetup(run.setupId);
 		await recomputeBuild(build.id);

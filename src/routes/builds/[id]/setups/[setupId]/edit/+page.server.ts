@@ -1,23 +1,16 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import { message } from 'sveltekit-superforms';
 import * as setups from '$lib/server/db/setups';
 import { recomputeBuild } from '$lib/server/sheets/recompute';
-import { editBuild, idParam } from '$lib/server/sheets/access';
+import { editSetup } from '$lib/server/sheets/access';
 import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
 import { saveSetup } from '$lib/server/sheets/service';
 import { unitsFor } from '$lib/server/sheets/units';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
-import type { Actions, PageServerLoad, RequestEvent } from './$types';
-
-async function target(event: RequestEvent) {
-	const { build } = await editBuild(event, idParam(event.params.id));
-	const setup = await setups.read(build.id, Number(event.params.setupId));
-	if (!setup) error(404, 'No such setup.');
-	return { build, setup };
-}
+import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const { build, setup } = await target(event);
+	const { build, setup } = await editSetup(event);
 	const units = unitsFor(event);
 	const form = await sheetForm('setup', SETUP_FIELDS, units, {
 		...setup.config,
@@ -34,7 +27,7 @@ export const load: PageServerLoad = async (event) => {
 
 export const actions: Actions = {
 	save: async (event) => {
-		const { build, setup } = await target(event);
+		const { build, setup } = await editSetup(event);
 		const { form, stored, version } = await readSheetForm(event.request, 'setup', SETUP_FIELDS);
 		if (!form.valid) return fail(400, { form });
 		const r = await saveSetup(build.id, stored, { id: setup.id, version });
@@ -42,7 +35,7 @@ export const actions: Actions = {
 		redirect(303, `/builds/${build.id}/edit`);
 	},
 	remove: async (event) => {
-		const { build, setup } = await target(event);
+		const { build, setup } = await editSetup(event);
 		await setups.destroy(setup.id);
 		await recomputeBuild(build.id);
 		redirect(303, `/builds/${build.id}/edit`);
