@@ -61,7 +61,8 @@ export function stackEnv(name, outer = process.env) {
 		BODY_SIZE_LIMIT: outer.BODY_SIZE_LIMIT ?? '200M',
 		AUTH_TRUST_HOST: 'true',
 		// The SDK is pinned to a release that supports Node 20; its reminder about Node 22 is noise here.
-		AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: outer.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
+		AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:
+			outer.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
 		FRESH_DB: name === 'test' && outer.KEEP_TEST_DB !== '1' ? '1' : ''
 	};
 	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
