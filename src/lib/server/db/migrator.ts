@@ -5,6 +5,7 @@ import * as m001 from './migrations/2026.12.01T22.00.00.create-accounts';
 import * as m002 from './migrations/2026.12.01T22.10.00.create-email-tokens-and-desk-notes';
 import * as m003 from './migrations/2026.12.01T23.00.00.create-builds';
 import * as m004 from './migrations/2026.12.01T23.10.00.create-photos';
+import * as m005 from './migrations/2026.12.01T23.50.00.close-builds-columns';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -13,7 +14,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.01T22.00.00.create-accounts', ...m001 },
 	{ name: '2026.12.01T22.10.00.create-email-tokens-and-desk-notes', ...m002 },
 	{ name: '2026.12.01T23.00.00.create-builds', ...m003 },
-	{ name: '2026.12.01T23.10.00.create-photos', ...m004 }
+	{ name: '2026.12.01T23.10.00.create-photos', ...m004 },
+	{ name: '2026.12.01T23.50.00.close-builds-columns', ...m005 }
 ];
 
 export function migrator() {

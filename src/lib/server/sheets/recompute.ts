@@ -45,6 +45,8 @@ export async function recomputeSetup(setupId: number): Promise<void> {
 			gearingLimitKmh: d.gearingLimitKmh,
 			bestRunKmh: best?.speedKmh ?? null,
 			bestRunId: best?.id ?? null,
+			bestRunElevationM: best?.elevationM ?? null,
+			bestRunMethod: best?.method ?? null,
 			seaLevelJet: bestJet
 		},
 		{ where: { id: setupId } }
@@ -79,4 +81,29 @@ export async function recomputeBuild(buildId: number): Promise<void> {
 		},
 		{ where: { id: buildId }, silent: true }
 	);
+	await refreshListing(buildId);
+}
+
+/** Which of a build's setups the close-builds ranking may return (see the migration's note). */
+export async function refreshListing(buildId: number): Promise<void> {
+	const { Build, Setup } = models();
+	const b = await Build.findByPk(buildId);
+	if (!b) return;
+	const open = b.publication === 'published' && b.moderation === 'visible';
+	const rows = await Setup.findAll({
+		where: { buildId },
+		attributes: ['id', 'position', 'bestRunKmh'],
+		order: [['position', 'DESC']]
+	});
+	const rep = rows.find((s) => s.bestRunKmh !== null)?.id ?? null;
+	for (const s of rows) {
+		await Setup.update(
+			{
+				engineCycle: b.engineCycle,
+				listed: open && s.id === rep,
+				anyListed: open && s.bestRunKmh !== null
+			},
+			{ where: { id: s.id }, silent: true }
+		);
+	}
 }

@@ -7,7 +7,7 @@ import type { SetupConfig } from '../db/models/setup';
 import * as parts from '../db/parts';
 import * as runs from '../db/runs';
 import * as setups from '../db/setups';
-import { recomputeBuild, recomputeSetup } from './recompute';
+import { recomputeBuild, recomputeSetup, refreshListing } from './recompute';
 
 // The build-sheet rules shared by the form actions (and, later, the JSON API).
 
@@ -133,8 +133,10 @@ export async function publishProblems(b: Build): Promise<string[]> {
 }
 
 export async function setPublication(b: Build, state: 'draft' | 'published') {
-	return builds.update(b.id, b.version, {
+	const ok = await builds.update(b.id, b.version, {
 		publication: state,
 		publishedAt: state === 'published' ? (b.publishedAt ?? new Date()) : b.publishedAt
 	});
+	await refreshListing(b.id);
+	return ok;
 }

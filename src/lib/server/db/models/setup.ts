@@ -29,6 +29,11 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
 	declare gearingLimitKmh: CreationOptional<number | null>;
 	declare bestRunKmh: CreationOptional<number | null>;
 	declare bestRunId: CreationOptional<number | null>;
+	declare bestRunElevationM: CreationOptional<number | null>;
+	declare bestRunMethod: CreationOptional<string | null>;
+	declare engineCycle: CreationOptional<'two-stroke' | 'four-stroke'>;
+	declare listed: CreationOptional<boolean>;
+	declare anyListed: CreationOptional<boolean>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -63,6 +68,15 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
 				gearingLimitKmh: real,
 				bestRunKmh: real,
 				bestRunId: DataTypes.INTEGER,
+				bestRunElevationM: real,
+				bestRunMethod: DataTypes.STRING(20),
+				engineCycle: {
+					type: DataTypes.ENUM('two-stroke', 'four-stroke'),
+					allowNull: false,
+					defaultValue: 'two-stroke'
+				},
+				listed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+				anyListed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
 			},

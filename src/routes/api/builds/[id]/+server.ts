@@ -5,6 +5,7 @@ import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
 import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
 import { exportBuild } from '$lib/server/sheets/export';
 import { removeBuildPhotos } from '$lib/server/sheets/photos';
+import { refreshListing } from '$lib/server/sheets/recompute';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 
@@ -30,6 +31,7 @@ export const PATCH: RequestHandler = api(async (event) => {
 	);
 	if (!(await builds.update(build.id, version, stored as builds.BuildPatch)))
 		throw new ApiFailure(409, 'The build changed since that version; fetch it again.');
+	await refreshListing(build.id);
 	return json({ id: build.id, version: version + 1 });
 });
 

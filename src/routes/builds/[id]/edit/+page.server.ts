@@ -16,6 +16,7 @@ import {
 	reorderPhotos,
 	updatePhoto
 } from '$lib/server/sheets/photos';
+import { refreshListing } from '$lib/server/sheets/recompute';
 import { addPart, publishProblems, removePart, setPublication } from '$lib/server/sheets/service';
 import { unitsFor } from '$lib/server/sheets/units';
 import { BUILD_FIELDS, PART_FIELDS } from '$lib/sheet/fields';
@@ -84,6 +85,7 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		if (!(await builds.update(build.id, version, stored as builds.BuildPatch)))
 			return message(form, CONFLICT, { status: 409 });
+		await refreshListing(build.id);
 		return message(form, 'Saved.');
 	},
 	addPart: async (event) => {

@@ -1,0 +1,219 @@
+import { QueryTypes } from 'sequelize';
+import { BAND, CAP, TERMS } from '../../close/weights';
+import { reasons, type Candidate, type Target } from '../../close/reasons';
+import type { CloseQuery } from '../../close/schema';
+import * as t from '../../tuning';
+import { db } from '../db/connection';
+import { models } from '../db/models';
+
+type Row = {
+	id: number;
+	build_id: number;
+	cc: number | null;
+	exhaust: string | null;
+	carb: number | null;
+	fd: number | null;
+	tyre: number | null;
+	rollers: number | null;
+	jet: number | null;
+	elev: number | null;
+	best: number | null;
+	score: number;
+	candidates: number;
+};
+
+const NUMERIC: [keyof Target, keyof typeof TERMS, string][] = [
+	['cc', 'displacement', 's.displacement_cc'],
+	['carb', 'carb', 's.carb_bore_mm'],
+	['finalDrive', 'finalDrive', 's.final_drive_ratio'],
+	['tyreMm', 'tyre', 's.tyre_circumference_mm'],
+	['rollers', 'rollers', 's.roller_total_g'],
+	['jet', 'jet', 's.sea_level_jet'],
+	['elevation', 'elevation', 's.best_run_elevation_m']
+];
+
+/** The comparison point from the base-scooter fields (empty ones stay undefined and drop out). */
+export function targetFrom(q: CloseQuery): Target {
+	const stages: t.GearStage[] | null =
+		q.driver && q.driven
+			? [
+					[q.driver, q.driven],
+					...(q.driver2 && q.driven2 ? [[q.driver2, q.driven2] as t.GearStage] : [])
+				]
+			: null;
+	let tyreMm: number | undefined;
+	try {
+		tyreMm = q.tyre ? t.tyreCircumferenceMm(q.tyre) : undefined;
+	} catch {
+		tyreMm = undefined;
+	}
+	return {
+		cc: q.cc,
+		exhaust: q.exhaust,
+		carb: q.carb,
+		finalDrive: q.ratio ?? (stages ? t.finalDriveRatio(stages) : undefined),
+		tyreMm,
+		rollers: q.rollers,
+		elevation: q.elevation
+	};
+}
+
+/** A build's representative setup as the comparison point ("where does my build sit?"). */
+export async function targetFromBuild(
+	buildId: number
+): Promise<{ target: Target; cycle: 'two-stroke' | 'four-stroke' } | null> {
+	const s = await models().Setup.findOne({ where: { buildId, listed: true } });
+	if (!s) return null;
+	const v = (x: number | null) => x ?? undefined;
+	return {
+		cycle: s.engineCycle,
+		target: {
+			cc: v(s.displacementCc),
+			exhaust: s.exhaustType ?? undefined,
+			carb: v(s.carbBoreMm),
+			finalDrive: v(s.finalDriveRatio),
+			tyreMm: v(s.tyreCircumferenceMm),
+			rollers: v(s.rollerTotalG),
+			jet: v(s.seaLevelJet),
+			elevation: v(s.bestRunElevationM)
+		}
+	};
+}
+
+/**
+ * Ranks the published setups nearest to `target` in one SQL query over the covering index:
+ * prefilter on (flag, cycle, displacement band), score on the stored derived columns, sort, limit.
+ * The band widens (a second query) only when too few builds fall inside it.
+ */
+export async function rankClose(
+	target: Target,
+	opts: { cycle: string; all?: boolean; limit: number; excludeBuild?: number }
+) {
+	const flag = opts.all ? 'any_listed' : 'listed';
+	const index = opts.all ? 'setups_close_all' : 'setups_close_representative';
+	const repl: Record<string, unknown> = { cycle: opts.cycle, limit: opts.limit, cap: CAP };
+	const terms: string[] = [];
+	for (const [key, term, col] of NUMERIC) {
+		const v = target[key];
+		if (typeof v !== 'number') continue;
+		repl[`v_${key}`] = v;
+		terms.push(
+			`${TERMS[term].weight} * LEAST(COALESCE(ABS(${col} - :v_${key}) / ${TERMS[term].scale}, :cap), :cap)`
+		);
+	}
+	if (target.exhaust) {
+		repl.v_exhaust = target.exhaust;
+		terms.push(`${TERMS.exhaust.weight} * COALESCE(s.exhaust_type <> :v_exhaust, 1)`);
+	}
+	const score = terms.length ? terms.join(' + ') : '0';
+	const exclude = opts.excludeBuild ? 'AND s.build_id <> :exclude' : '';
+	if (opts.excludeBuild) repl.exclude = opts.excludeBuild;
+	const run = (band: number | null) =>
+		db().query<Row>(
+			`SELECT s.id, s.build_id, s.displacement_cc AS cc, s.exhaust_type AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
+				s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers, s.sea_level_jet AS jet, s.best_run_elevation_m AS elev,
+				s.best_run_kmh AS best, (${score}) AS score, COUNT(*) OVER () AS candidates
+			FROM setups s FORCE INDEX (${index})
+			WHERE s.${flag} = 1 AND s.engine_cycle = :cycle ${band === null ? '' : 'AND s.displacement_cc BETWEEN :lo AND :hi'} ${exclude}
+			ORDER BY score, s.id LIMIT :limit`,
+			{
+				replacements: {
+					...repl,
+					lo: (target.cc ?? 0) - (band ?? 0),
+					hi: (target.cc ?? 0) + (band ?? 0)
+				},
+				type: QueryTypes.SELECT
+			}
+		);
+	let band: number | null = typeof target.cc === 'number' ? BAND.initialCc : null;
+	let rows = await run(band);
+	for (
+		let i = 0;
+		band !== null && i <= BAND.widenings && Number(rows[0]?.candidates ?? 0) < BAND.minCandidates;
+		i++
+	) {
+		band = i === BAND.widenings ? null : band * 2;
+		rows = await run(band);
+	}
+	return { rows, band, candidates: Number(rows[0]?.candidates ?? 0) };
+}
+
+/** Ranked rows with titles, owners, costs and reasons: one more query, whatever the number of results. */
+export async function closeBuilds(
+	target: Target,
+	opts: { cycle: string; all?: boolean; limit: number; excludeBuild?: number }
+) {
+	const { rows, band, candidates } = await rankClose(target, opts);
+	const ids = rows.map((r) => r.id);
+	const details = ids.length
+		? await db().query<{
+				id: number;
+				position: number;
+				change_note: string;
+				method: string | null;
+				build_id: number;
+				title: string;
+				parts_total_minor: number;
+				currency: string;
+				owner: string | null;
+			}>(
+				`SELECT s.id, s.position, s.change_note, s.best_run_method AS method, b.id AS build_id, b.title, b.parts_total_minor, b.currency, u.name AS owner
+				FROM setups s JOIN builds b ON b.id = s.build_id JOIN users u ON u.id = b.owner_id WHERE s.id IN (:ids)`,
+				{ replacements: { ids }, type: QueryTypes.SELECT }
+			)
+		: [];
+	const byId = new Map(details.map((d) => [d.id, d]));
+	const results = rows.map((r) => {
+		const d = byId.get(r.id)!;
+		const c: Candidate = {
+			cc: r.cc,
+			exhaust: r.exhaust,
+			carb: r.carb,
+			finalDrive: r.fd,
+			tyreMm: r.tyre,
+			rollers: r.rollers,
+			jet: r.jet,
+			elevation: r.elev
+		};
+		return {
+			setupId: r.id,
+			buildId: r.build_id,
+			title: d.title,
+			owner: d.owner ?? 'a member',
+			setup: `${d.position}. ${d.change_note}`,
+			score: Number(r.score),
+			reasons: reasons(target, c),
+			bestKmh: r.best === null ? null : Number(r.best),
+			method: d.method,
+			partsTotalMinor: d.parts_total_minor,
+			currency: d.currency,
+			cc: r.cc
+		};
+	});
+	return { results, bandCc: band, candidates };
+}
+
+/** "What would I get": the gearing ceiling beside what the closest builds measured. */
+export function wouldGet(q: CloseQuery, target: Target, results: { bestKmh: number | null }[]) {
+	const speeds = results
+		.map((r) => r.bestKmh)
+		.filter((x): x is number => x !== null)
+		.sort((a, b) => a - b);
+	const mid = speeds.length
+		? speeds.length % 2
+			? speeds[(speeds.length - 1) / 2]
+			: (speeds[speeds.length / 2 - 1] + speeds[speeds.length / 2]) / 2
+		: null;
+	let gearingKmh: number | null = null;
+	if (q.peak && q.topCvt && target.finalDrive && target.tyreMm) {
+		gearingKmh = t.roadSpeedKmh(q.peak, q.topCvt * target.finalDrive, target.tyreMm);
+	}
+	return {
+		gearingKmh,
+		count: speeds.length,
+		medianKmh: mid,
+		minKmh: speeds[0] ?? null,
+		maxKmh: speeds.at(-1) ?? null,
+		fewClose: speeds.length < 5
+	};
+}

@@ -1,0 +1,141 @@
+import { QueryTypes } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { closeDb, db } from '../../src/lib/server/db/connection';
+import * as builds from '../../src/lib/server/db/builds';
+import { closeBuilds, rankClose, targetFrom } from '../../src/lib/server/close/service';
+import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { makeUser } from '../support/factories';
+
+// A fixed set of four-stroke builds (the demo data is all two-stroke, so nothing else competes).
+const BASE = {
+	changeNote: 'fixture',
+	isStock: false,
+	bore: 47,
+	stroke: 39.2,
+	squish: 0.8,
+	carbBore: 17,
+	mainJet: 92,
+	jetNumbering: 'diameter',
+	exhaustType: 'expansion-chamber',
+	rollerWeights: '6x5',
+	primaryDriver: 15,
+	primaryDriven: 43,
+	secondaryDriver: 13,
+	secondaryDriven: 47,
+	rearTyre: '120/70-12',
+	peakRpm: 10000,
+	lubrication: 'premix',
+	kitMaterial: 'cast-iron'
+};
+const run = (speed: number, elevation: number) => ({
+	runOn: '2026-05-01',
+	speed,
+	method: 'gps-logger',
+	twoWay: true,
+	venue: 'closed-course',
+	elevation,
+	temp: 15,
+	humidity: 50,
+	pressure: null,
+	pressureKind: 'sea-level',
+	chtSensor: 'plug-washer',
+	notes: ''
+});
+const ids: Record<string, number> = {};
+// Only this file's fixture counts, should the database still hold one from an earlier run.
+const mine = <T extends { buildId: number }>(rs: T[]) =>
+	rs.filter((r) => Object.values(ids).includes(r.buildId));
+
+beforeAll(async () => {
+	const owner = await makeUser();
+	const fixture: [string, Record<string, unknown>, number, number][] = [
+		['P same as the target', {}, 95, 200],
+		['Q sport silencer', { exhaustType: 'sport' }, 80, 200],
+		['R stock 50 cc cylinder', { bore: 40 }, 70, 200],
+		['S tuned up the hill', {}, 92, 1400]
+	];
+	for (const [title, change, speed, elevation] of fixture) {
+		const b = await builds.create(owner.id, {
+			title,
+			engineCycle: 'four-stroke',
+			chassis: 'fixture',
+			engineFamily: 'fixture',
+			brakeFront: 'disc',
+			brakeRear: 'drum'
+		});
+		const { id } = (await saveSetup(b.id, { ...BASE, ...change } as never)) as { id: number };
+		await saveRun(b.id, id, run(speed, elevation) as never);
+		await setPublication((await builds.read(b.id))!, 'published');
+		ids[title[0]] = b.id;
+	}
+});
+afterAll(closeDb);
+
+const target = targetFrom({
+	cycle: 'four-stroke',
+	cc: 68.0098,
+	exhaust: 'expansion-chamber',
+	carb: 17,
+	tyre: '120/70-12',
+	driver: 15,
+	driven: 43,
+	driver2: 13,
+	driven2: 47,
+	elevation: 200,
+	limit: 10
+});
+
+describe('close builds', () => {
+	it('ranks the fixed set in the order worked out by hand, with the reasons', async () => {
+		// Hand-worked scores (weights in src/lib/close/weights.ts): P 0; S 0.75 × 1200/1000 = 0.9;
+		// Q exhaust 2 × 1 = 2; R 3 × min(|49.26 − 68.01| / 10, 3) = 3 × 1.875 = 5.625.
+		const results = mine((await closeBuilds(target, { cycle: 'four-stroke', limit: 50 })).results);
+		expect(results.map((r) => r.buildId)).toEqual([ids.P, ids.S, ids.Q, ids.R]);
+		expect(results.map((r) => Number(r.score.toFixed(3)))).toEqual([0, 0.9, 2, 5.625]);
+		expect(results[0].reasons).toEqual([
+			'same pipe type (expansion chamber)',
+			'same size (68 cc)',
+			'same final drive',
+			'tuned at about the same elevation'
+		]);
+		expect(results[1].reasons).toContain('tuned 1,200 m higher');
+		expect(results[2].reasons[0]).toBe('sport silencer instead of expansion chamber');
+		expect(results[3].reasons).toContain('49 vs 68 cc');
+		expect(results[0].bestKmh).toBe(95);
+	});
+
+	it('leaves empty fields out of the score', async () => {
+		const onlyPipe = targetFrom({ cycle: 'four-stroke', exhaust: 'expansion-chamber', limit: 10 });
+		const results = mine(
+			(await closeBuilds(onlyPipe, { cycle: 'four-stroke', limit: 50 })).results
+		);
+		expect(results.map((r) => r.score)).toEqual([0, 0, 0, 2]);
+		expect(results[3].buildId).toBe(ids.Q);
+		const nothing = await closeBuilds(targetFrom({ cycle: 'four-stroke', limit: 10 }), {
+			cycle: 'four-stroke',
+			limit: 10
+		});
+		expect(nothing.results.every((r) => r.score === 0)).toBe(true);
+	});
+
+	it('makes the same number of queries for 5 results as for 50', async () => {
+		const spy = vi.spyOn(db(), 'query');
+		await closeBuilds(target, { cycle: 'two-stroke', limit: 5 });
+		const five = spy.mock.calls.length;
+		spy.mockClear();
+		await closeBuilds(target, { cycle: 'two-stroke', limit: 50 });
+		expect(spy.mock.calls.length).toBe(five);
+		spy.mockRestore();
+	});
+
+	it('uses the prefilter index, covering the ranked columns', async () => {
+		const [plan] = await db().query<{ key: string; Extra: string }>(
+			"EXPLAIN SELECT s.id, s.displacement_cc, s.exhaust_type, s.best_run_kmh FROM setups s FORCE INDEX (setups_close_representative) WHERE s.listed = 1 AND s.engine_cycle = 'two-stroke' AND s.displacement_cc BETWEEN 56 AND 80",
+			{ type: QueryTypes.SELECT }
+		);
+		expect(plan.key).toBe('setups_close_representative');
+		expect(plan.Extra).toMatch(/Using index/);
+		const { rows } = await rankClose(target, { cycle: 'two-stroke', limit: 3 });
+		expect(rows.length).toBeGreaterThan(0);
+	});
+});
