@@ -20,9 +20,10 @@ import {
 import { ROOT, stackEnv } from './lib/profiles.js';
 
 const mode = process.argv[2] ?? 'start';
-if (!['start', 'test', 'dev', 'services'].includes(mode))
-	fail(`unknown mode ${mode}`, 'Use start, test, dev or services.');
-const profile = mode === 'test' ? 'test' : (process.env.STACK_PROFILE ?? 'app');
+if (!['start', 'test', 'dev', 'services', 'perf'].includes(mode))
+	fail(`unknown mode ${mode}`, 'Use start, test, dev, services or perf.');
+const profile =
+	mode === 'test' ? 'test' : mode === 'perf' ? 'perf' : (process.env.STACK_PROFILE ?? 'app');
 const e = stackEnv(profile);
 const children = []; // { name, pid, stop }
 let stopping = false;
@@ -50,6 +51,16 @@ console.log(`\n▸ services (${profile})`);
 const dbServer = await startMariadb(e);
 children.push({ name: 'mariadb', ...dbServer });
 console.log(`· MariaDB on 127.0.0.1:${e.DB_PORT}, database ${e.DB_NAME}`);
+if (mode === 'perf') {
+	await tsx('scripts/migrate.ts', 'migrations');
+	console.log('\n▸ benchmark: close builds');
+	const code = await run(
+		process.execPath,
+		['--import', 'tsx', 'tests/perf/close-builds.bench.ts', ...process.argv.slice(3)],
+		{ cwd: ROOT, env }
+	);
+	await shutdown(code);
+}
 await startNode('s3', ['fake-storage/s3.js'], e.S3_PORT, 'fake object store');
 await startNode('smtp', ['fake-storage/smtp.js'], e.SMTP_PORT, 'fake mail server');
 

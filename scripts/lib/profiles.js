@@ -17,6 +17,19 @@ const DEFAULTS = {
 		BUILD_DIR: 'build',
 		RUN_DIR: '.data/run'
 	},
+	// `npm run perf`: its own MariaDB and a benchmark database, nothing else.
+	perf: {
+		PORT: '3200',
+		DB_PORT: '3337',
+		S3_PORT: '4599',
+		SMTP_PORT: '2555',
+		DB_NAME: 'squishline_perf',
+		DB_DATA_DIR: '.data/perf-mariadb',
+		S3_DATA_DIR: '.data/perf-s3',
+		FAKE_MAIL_DIR: '.data/perf-outbox',
+		BUILD_DIR: '.data/perf-build',
+		RUN_DIR: '.data/perf-run'
+	},
 	test: {
 		PORT: '3100',
 		DB_PORT: '3317',
@@ -69,5 +82,15 @@ export function stackEnv(name, outer = process.env) {
 	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;
 	return e;
 }
+
+/** The variables stackEnv sets, so a nested launcher can be given a clean environment. */
+export const STACK_KEYS = [
+	...Object.keys(DEFAULTS.app),
+	'HOST',
+	'ORIGIN',
+	'S3_ENDPOINT',
+	'SMTP_URL',
+	'FRESH_DB'
+];
 
 export { ROOT };

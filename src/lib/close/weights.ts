@@ -23,5 +23,8 @@ export const TERMS = {
 	elevation: { weight: 0.75, scale: 1000 }
 } as const;
 
-/** The first displacement band of the prefilter (± cc) and how often it may double when too few builds fall in it. */
-export const BAND = { initialCc: 12, widenings: 3, minCandidates: 40 };
+/**
+ * The prefilter's first displacement band (± cc: kits of one class sit within a few cc), how often it
+ * may double when fewer than `minCandidates` builds fall inside, and then the band is dropped.
+ */
+export const BAND = { initialCc: 4, widenings: 4, minCandidates: 40 };

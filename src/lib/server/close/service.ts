@@ -108,34 +108,51 @@ export async function rankClose(
 	const score = terms.length ? terms.join(' + ') : '0';
 	const exclude = opts.excludeBuild ? 'AND s.build_id <> :exclude' : '';
 	if (opts.excludeBuild) repl.exclude = opts.excludeBuild;
-	const run = (band: number | null) =>
-		db().query<Row>(
-			`SELECT s.id, s.build_id, s.displacement_cc AS cc, s.exhaust_type AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
-				s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers, s.sea_level_jet AS jet, s.best_run_elevation_m AS elev,
-				s.best_run_kmh AS best, (${score}) AS score, COUNT(*) OVER () AS candidates
-			FROM setups s FORCE INDEX (${index})
-			WHERE s.${flag} = 1 AND s.engine_cycle = :cycle ${band === null ? '' : 'AND s.displacement_cc BETWEEN :lo AND :hi'} ${exclude}
-			ORDER BY score, s.id LIMIT :limit`,
-			{
-				replacements: {
-					...repl,
-					lo: (target.cc ?? 0) - (band ?? 0),
-					hi: (target.cc ?? 0) + (band ?? 0)
-				},
-				type: QueryTypes.SELECT
-			}
+	// Prefilter: the named pipe type (while it alone holds enough builds), then the displacement band.
+	type Plan = { band: number | null; samePipe: boolean };
+	const indexFor = (p: Plan) =>
+		p.samePipe ? (opts.all ? 'setups_close_all_by_exhaust' : 'setups_close_by_exhaust') : index;
+	const where = (p: Plan) =>
+		`s.${flag} = 1 AND s.engine_cycle = :cycle ${p.samePipe ? 'AND s.exhaust_type = :v_exhaust' : ''} ${p.band === null ? '' : 'AND s.displacement_cc BETWEEN :lo AND :hi'} ${exclude}`;
+	const bounds = (p: Plan) => ({
+		...repl,
+		lo: (target.cc ?? 0) - (p.band ?? 0),
+		hi: (target.cc ?? 0) + (p.band ?? 0)
+	});
+	// Enough builds in the prefilter? Counting stops at the threshold, so this reads few index entries.
+	const enough = async (p: Plan) => {
+		const [r] = await db().query<{ n: number }>(
+			`SELECT COUNT(*) AS n FROM (SELECT 1 FROM setups s FORCE INDEX (${indexFor(p)}) WHERE ${where(p)} LIMIT ${BAND.minCandidates}) x`,
+			{ replacements: bounds(p), type: QueryTypes.SELECT }
 		);
-	let band: number | null = typeof target.cc === 'number' ? BAND.initialCc : null;
-	let rows = await run(band);
-	for (
-		let i = 0;
-		band !== null && i <= BAND.widenings && Number(rows[0]?.candidates ?? 0) < BAND.minCandidates;
-		i++
-	) {
-		band = i === BAND.widenings ? null : band * 2;
-		rows = await run(band);
+		return Number(r.n) >= BAND.minCandidates;
+	};
+	const plans: Plan[] = [];
+	const bands: (number | null)[] =
+		typeof target.cc === 'number'
+			? [...Array.from({ length: BAND.widenings }, (_, k) => BAND.initialCc * 2 ** k), null]
+			: [null];
+	for (const samePipe of target.exhaust ? [true, false] : [false])
+		for (const b of bands) plans.push({ band: b, samePipe });
+	let plan = plans[plans.length - 1];
+	for (const p of plans.slice(0, -1)) {
+		if (await enough(p)) {
+			plan = p;
+			break;
+		}
 	}
-	return { rows, band, candidates: Number(rows[0]?.candidates ?? 0) };
+	const band = plan.band;
+	const rows = await db().query<Row>(
+		`SELECT s.id, s.build_id, s.displacement_cc AS cc, s.exhaust_type AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
+			s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers, s.sea_level_jet AS jet, s.best_run_elevation_m AS elev,
+			s.best_run_kmh AS best, (${score}) AS score
+		FROM setups s FORCE INDEX (${indexFor(plan)})
+		WHERE ${where(plan)}
+		ORDER BY score, s.id LIMIT :limit`,
+		{ replacements: bounds(plan), type: QueryTypes.SELECT }
+	);
+	const candidates = rows.length;
+	return { rows, band, samePipe: plan.samePipe, candidates };
 }
 
 /** Ranked rows with titles, owners, costs and reasons: one more query, whatever the number of results. */

@@ -6,6 +6,7 @@ import * as m002 from './migrations/2026.12.01T22.10.00.create-email-tokens-and-
 import * as m003 from './migrations/2026.12.01T23.00.00.create-builds';
 import * as m004 from './migrations/2026.12.01T23.10.00.create-photos';
 import * as m005 from './migrations/2026.12.01T23.50.00.close-builds-columns';
+import * as m006 from './migrations/2026.12.02T00.05.00.close-builds-exhaust-index';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -15,7 +16,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.01T22.10.00.create-email-tokens-and-desk-notes', ...m002 },
 	{ name: '2026.12.01T23.00.00.create-builds', ...m003 },
 	{ name: '2026.12.01T23.10.00.create-photos', ...m004 },
-	{ name: '2026.12.01T23.50.00.close-builds-columns', ...m005 }
+	{ name: '2026.12.01T23.50.00.close-builds-columns', ...m005 },
+	{ name: '2026.12.02T00.05.00.close-builds-exhaust-index', ...m006 }
 ];
 
 export function migrator() {
