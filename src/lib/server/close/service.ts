@@ -34,11 +34,12 @@ const NUMERIC: [keyof Target, keyof typeof TERMS, string][] = [
 
 /** The comparison point from the base-scooter fields (empty ones stay undefined and drop out). */
 export function targetFrom(q: CloseQuery): Target {
+	// Stored final drives multiply both gear stages, so only a complete pair of stages compares.
 	const stages: t.GearStage[] | null =
-		q.driver && q.driven
+		q.driver && q.driven && q.driver2 && q.driven2
 			? [
 					[q.driver, q.driven],
-					...(q.driver2 && q.driven2 ? [[q.driver2, q.driven2] as t.GearStage] : [])
+					[q.driver2, q.driven2]
 				]
 			: null;
 	let tyreMm: number | undefined;
