@@ -1,4 +1,4 @@
-import { QueryTypes } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { deriveRun, deriveSetup } from '../../sheet/derive';
 import { models } from '../db/models';
 
@@ -90,20 +90,14 @@ export async function refreshListing(buildId: number): Promise<void> {
 	const b = await Build.findByPk(buildId);
 	if (!b) return;
 	const open = b.publication === 'published' && b.moderation === 'visible';
-	const rows = await Setup.findAll({
-		where: { buildId },
-		attributes: ['id', 'position', 'bestRunKmh'],
+	const rep = await Setup.findOne({
+		where: { buildId, bestRunKmh: { [Op.ne]: null } },
+		attributes: ['id'],
 		order: [['position', 'DESC']]
 	});
-	const rep = rows.find((s) => s.bestRunKmh !== null)?.id ?? null;
-	for (const s of rows) {
-		await Setup.update(
-			{
-				engineCycle: b.engineCycle,
-				listed: open && s.id === rep,
-				anyListed: open && s.bestRunKmh !== null
-			},
-			{ where: { id: s.id }, silent: true }
-		);
-	}
+	// One statement for all of the build's setups.
+	await Setup.sequelize!.query(
+		'UPDATE setups SET engine_cycle = :cycle, listed = (:open AND id = :rep), any_listed = (:open AND best_run_kmh IS NOT NULL) WHERE build_id = :buildId',
+		{ replacements: { cycle: b.engineCycle, open: open ? 1 : 0, rep: rep?.id ?? 0, buildId } }
+	);
 }
