@@ -3,6 +3,7 @@ import { BAND, CAP, TERMS } from '../../close/weights';
 import { reasons, type Candidate, type Target } from '../../close/reasons';
 import type { CloseQuery } from '../../close/schema';
 import * as t from '../../tuning';
+import { EXHAUST_TYPES } from '../../sheet/fields';
 import { db } from '../db/connection';
 import { models } from '../db/models';
 
@@ -21,6 +22,8 @@ type Row = {
 	score: number;
 	candidates: number;
 };
+
+const PIPES = ['', ...EXHAUST_TYPES.map((o) => o.value)];
 
 const NUMERIC: [keyof Target, keyof typeof TERMS, string][] = [
 	['cc', 'displacement', 's.displacement_cc'],
@@ -104,21 +107,42 @@ export async function rankClose(
 	}
 	if (target.exhaust) {
 		repl.v_exhaust = target.exhaust;
-		terms.push(`${TERMS.exhaust.weight} * COALESCE(s.exhaust_type <> :v_exhaust, 1)`);
+		terms.push(`${TERMS.exhaust.weight} * COALESCE(PIPE_COL <> :v_exhaust, 1)`);
 	}
 	const score = terms.length ? terms.join(' + ') : '0';
 	const exclude = opts.excludeBuild ? 'AND s.build_id <> :exclude' : '';
 	if (opts.excludeBuild) repl.exclude = opts.excludeBuild;
-	// Prefilter: the named pipe type (while it alone holds enough builds), then the displacement band.
+	// Prefilter: a band on the displacement (or, without one, on the carburettor bore), with the named
+	// pipe type while it alone holds enough builds; the band doubles while too few builds fall inside.
+	const lead =
+		typeof target.cc === 'number' ? 'cc' : typeof target.carb === 'number' ? 'carb' : null;
 	type Plan = { band: number | null; samePipe: boolean };
 	const indexFor = (p: Plan) =>
-		p.samePipe ? (opts.all ? 'setups_close_all_by_exhaust' : 'setups_close_by_exhaust') : index;
-	const where = (p: Plan) =>
-		`s.${flag} = 1 AND s.engine_cycle = :cycle ${p.samePipe ? 'AND s.exhaust_type = :v_exhaust' : ''} ${p.band === null ? '' : 'AND s.displacement_cc BETWEEN :lo AND :hi'} ${exclude}`;
+		lead === 'carb' && p.band !== null
+			? opts.all
+				? 'setups_close_all_by_carb'
+				: 'setups_close_by_carb'
+			: p.samePipe
+				? opts.all
+					? 'setups_close_all_by_exhaust'
+					: 'setups_close_by_exhaust'
+				: index;
+	const bandSql = (p: Plan) =>
+		p.band === null
+			? p.samePipe
+				? 'AND s.exhaust_type = :v_exhaust'
+				: ''
+			: lead === 'cc'
+				? `${p.samePipe ? 'AND s.exhaust_type = :v_exhaust' : ''} AND s.displacement_cc BETWEEN :lo AND :hi`
+				: // Pipe types as a list of points, so the bore range applies inside each.
+					`AND s.close_pipe IN (:pipes) AND s.carb_bore_mm BETWEEN :lo AND :hi`;
+	const where = (p: Plan) => `s.${flag} = 1 AND s.engine_cycle = :cycle ${bandSql(p)} ${exclude}`;
+	const centre = lead === 'cc' ? target.cc! : lead === 'carb' ? target.carb! : 0;
 	const bounds = (p: Plan) => ({
 		...repl,
-		lo: (target.cc ?? 0) - (p.band ?? 0),
-		hi: (target.cc ?? 0) + (p.band ?? 0)
+		pipes: p.samePipe ? [target.exhaust] : PIPES,
+		lo: centre - (p.band ?? 0),
+		hi: centre + (p.band ?? 0)
 	});
 	// Enough builds in the prefilter? Counting stops at the threshold, so this reads few index entries.
 	const enough = async (p: Plan) => {
@@ -129,10 +153,10 @@ export async function rankClose(
 		return Number(r.n) >= BAND.minCandidates;
 	};
 	const plans: Plan[] = [];
-	const bands: (number | null)[] =
-		typeof target.cc === 'number'
-			? [...Array.from({ length: BAND.widenings }, (_, k) => BAND.initialCc * 2 ** k), null]
-			: [null];
+	const first = lead === 'cc' ? BAND.initialCc : BAND.initialCarbMm;
+	const bands: (number | null)[] = lead
+		? [...Array.from({ length: BAND.widenings }, (_, k) => first * 2 ** k), null]
+		: [null];
 	for (const samePipe of target.exhaust ? [true, false] : [false])
 		for (const b of bands) plans.push({ band: b, samePipe });
 	let plan = plans[plans.length - 1];
@@ -142,18 +166,20 @@ export async function rankClose(
 			break;
 		}
 	}
-	const band = plan.band;
+	const band = lead === 'cc' ? plan.band : null;
+	// The carburettor-led index carries the pipe type as close_pipe only: read it there, so the scan
+	// stays on the index.
+	const pipeCol = indexFor(plan).includes('carb') ? "NULLIF(s.close_pipe, '')" : 's.exhaust_type';
 	const rows = await db().query<Row>(
-		`SELECT s.id, s.build_id, s.displacement_cc AS cc, s.exhaust_type AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
+		`SELECT s.id, s.build_id, s.displacement_cc AS cc, ${pipeCol} AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
 			s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers, s.sea_level_jet AS jet, s.best_run_elevation_m AS elev,
-			s.best_run_kmh AS best, (${score}) AS score
+			s.best_run_kmh AS best, (${score.replaceAll('PIPE_COL', pipeCol)}) AS score
 		FROM setups s FORCE INDEX (${indexFor(plan)})
 		WHERE ${where(plan)}
 		ORDER BY score, s.id LIMIT :limit`,
 		{ replacements: bounds(plan), type: QueryTypes.SELECT }
 	);
-	const candidates = rows.length;
-	return { rows, band, samePipe: plan.samePipe, candidates };
+	return { rows, band, samePipe: plan.samePipe, candidates: rows.length };
 }
 
 /** Ranked rows with titles, owners, costs and reasons: one more query, whatever the number of results. */
