@@ -1,9 +1,22 @@
 // Applies pending migrations to the database named in the environment.
-import { closeDb } from '../src/lib/server/db/connection';
+import { QueryTypes } from 'sequelize';
+import { closeDb, db } from '../src/lib/server/db/connection';
 import { migrator } from '../src/lib/server/db/migrator';
+import { recomputeSetup, refreshSteps } from '../src/lib/server/sheets/recompute';
 
 const done = await migrator().up();
 console.log(
 	done.length ? `  applied ${done.map((m) => m.name).join(', ')}` : '  schema up to date'
 );
+// The step columns come from the setups' configurations (JSON compared field by field in
+// src/lib/sheet/change-kinds.ts), which SQL alone cannot do: fill them for sheets saved before.
+if (done.some((m) => m.name === '2026.12.02T04.00.00.stats-and-search')) {
+	const ids = await db().query<{ id: number; build_id: number }>(
+		'SELECT id, build_id FROM setups ORDER BY build_id, position',
+		{ type: QueryTypes.SELECT }
+	);
+	for (const s of ids) await recomputeSetup(s.id);
+	for (const b of new Set(ids.map((s) => s.build_id))) await refreshSteps(b);
+	console.log(`  change steps filled for ${ids.length} setups`);
+}
 await closeDb();

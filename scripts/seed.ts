@@ -4,6 +4,7 @@ import { closeDb } from '../src/lib/server/db/connection';
 import * as users from '../src/lib/server/db/users';
 import type { Role } from '../src/lib/roles';
 import { seedBuilds } from './demo/builds';
+import { seedOneChange } from './demo/one-change';
 
 type Person = { email: string; name: string; role: Role; units?: 'metric' | 'imperial' };
 const demo = JSON.parse(
@@ -28,5 +29,6 @@ for (const p of demo.people) {
 	if (u) owners.push(u.id);
 }
 const builds = await seedBuilds(owners);
-console.log(`  ${builds} demo build sheets added`);
+const steady = await seedOneChange(owners);
+console.log(`  ${builds + steady} demo build sheets added`);
 await closeDb();

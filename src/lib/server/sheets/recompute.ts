@@ -1,5 +1,6 @@
 import { Op, QueryTypes } from 'sequelize';
 import { deriveRun, deriveSetup } from '../../sheet/derive';
+import { changeKind, judgeStep, type StepRun } from '../../sheet/change-kinds';
 import { models } from '../db/models';
 
 const same = (a: number | null, b: number | null) =>
@@ -18,6 +19,7 @@ export async function recomputeSetup(setupId: number): Promise<void> {
 	const runs = await Run.findAll({ where: { setupId } });
 	let best: (typeof runs)[number] | null = null;
 	let bestJet: number | null = null;
+	let bestDensity: number | null = null;
 	for (const r of runs) {
 		const air = deriveRun(r, c);
 		if (
@@ -30,6 +32,7 @@ export async function recomputeSetup(setupId: number): Promise<void> {
 		if (!best || r.speedKmh > best.speedKmh) {
 			best = r;
 			bestJet = air.seaLevelJet;
+			bestDensity = air.airDensity;
 		}
 	}
 	await Setup.update(
@@ -47,6 +50,9 @@ export async function recomputeSetup(setupId: number): Promise<void> {
 			bestRunId: best?.id ?? null,
 			bestRunElevationM: best?.elevationM ?? null,
 			bestRunMethod: best?.method ?? null,
+			bestRunDensity: bestDensity,
+			bestRunTwoWay: best ? best.twoWay : null,
+			bestRunVenue: best?.venue ?? null,
 			seaLevelJet: bestJet
 		},
 		{ where: { id: setupId } }
@@ -97,7 +103,52 @@ export async function refreshListing(buildId: number): Promise<void> {
 	});
 	// One statement for all of the build's setups.
 	await Setup.sequelize!.query(
-		'UPDATE setups SET engine_cycle = :cycle, listed = (:open AND id = :rep), any_listed = (:open AND best_run_kmh IS NOT NULL) WHERE build_id = :buildId',
-		{ replacements: { cycle: b.engineCycle, open: open ? 1 : 0, rep: rep?.id ?? 0, buildId } }
+		'UPDATE setups SET engine_cycle = :cycle, engine_family = :family, listed = (:open AND id = :rep), any_listed = (:open AND best_run_kmh IS NOT NULL) WHERE build_id = :buildId',
+		{
+			replacements: {
+				cycle: b.engineCycle,
+				family: b.engineFamily ?? '',
+				open: open ? 1 : 0,
+				rep: rep?.id ?? 0,
+				buildId
+			}
+		}
 	);
+	await refreshSteps(buildId);
 }
+
+/**
+ * Each setup's step from the one before: which setup that is, the kind of change, and the speed
+ * change when the pair passes the change-effects rules. Rewritten for the whole build, since saving
+ * or deleting one setup changes its successor's step too; only rows that differ are written.
+ */
+export async function refreshSteps(buildId: number): Promise<void> {
+	const { Setup } = models();
+	const list = await Setup.findAll({ where: { buildId }, order: [['position', 'ASC']] });
+	for (let i = 0; i < list.length; i++) {
+		const s = list[i];
+		const prev = i > 0 ? list[i - 1] : null;
+		let kind: string | null = null;
+		let effect: number | null = null;
+		if (prev) {
+			const k = changeKind(prev.config, s.config);
+			const v = judgeStep(k, stepRun(prev), stepRun(s));
+			kind = k;
+			effect = v.counts ? v.deltaKmh : null;
+		}
+		if (s.prevSetupId !== (prev?.id ?? null) || s.changeKind !== kind || !same(s.effectKmh, effect))
+			await Setup.update(
+				{ prevSetupId: prev?.id ?? null, changeKind: kind, effectKmh: effect },
+				{ where: { id: s.id }, silent: true }
+			);
+	}
+}
+
+export const stepRun = (s: {
+	bestRunKmh: number | null;
+	bestRunMethod: string | null;
+	bestRunDensity: number | null;
+}): StepRun =>
+	s.bestRunKmh === null
+		? null
+		: { kmh: s.bestRunKmh, method: s.bestRunMethod ?? '', density: s.bestRunDensity };

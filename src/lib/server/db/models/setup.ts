@@ -34,6 +34,13 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
 	declare engineCycle: CreationOptional<'two-stroke' | 'four-stroke'>;
 	declare listed: CreationOptional<boolean>;
 	declare anyListed: CreationOptional<boolean>;
+	declare prevSetupId: CreationOptional<number | null>;
+	declare changeKind: CreationOptional<string | null>;
+	declare effectKmh: CreationOptional<number | null>;
+	declare bestRunDensity: CreationOptional<number | null>;
+	declare bestRunTwoWay: CreationOptional<boolean | null>;
+	declare bestRunVenue: CreationOptional<string | null>;
+	declare engineFamily: CreationOptional<string>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -77,6 +84,13 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
 				},
 				listed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				anyListed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+				prevSetupId: DataTypes.INTEGER,
+				changeKind: DataTypes.STRING(20),
+				effectKmh: real,
+				bestRunDensity: real,
+				bestRunTwoWay: DataTypes.BOOLEAN,
+				bestRunVenue: DataTypes.STRING(20),
+				engineFamily: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
 			},

@@ -1,0 +1,13 @@
+import { unitsFor } from '$lib/server/sheets/units';
+import { engineFamilies } from '$lib/server/stats/families';
+import { speedMap } from '$lib/server/stats/speed-map';
+import { paramsObject, speedMapQuerySchema } from '$lib/stats/schema';
+import type { PageServerLoad } from './$types';
+
+// Public. The first map is rendered here (so a shared link opens on it); the page then asks
+// GET /api/stats/speed-map itself whenever a filter changes.
+export const load: PageServerLoad = async (event) => {
+	const query = speedMapQuerySchema.parse(paramsObject(event.url.searchParams));
+	const [map, families] = await Promise.all([speedMap(query), engineFamilies()]);
+	return { query, map, families, units: unitsFor(event) };
+};
