@@ -1,0 +1,142 @@
+import { QueryTypes } from 'sequelize';
+import type { BuildListQuery } from '../../schemas/build-list';
+import { toCanonical, type Units } from '../../sheet/units';
+import { booleanQuery } from '../search/words';
+import { correct } from '../search/vocabulary';
+import { db } from './connection';
+
+// The public builds list: filters on the build and on its representative setup (the one close builds
+// ranks, `setups.listed`), keyset pages, and search. One query per page whatever its size; a search
+// that finds nothing makes one more with the nearest spelling (see ../search/vocabulary.ts).
+
+export type ListRow = {
+	id: number;
+	title: string;
+	owner: string;
+	engineFamily: string;
+	bestSpeedKmh: number | null;
+	stockSpeedKmh: number | null;
+	partsTotalMinor: number;
+	currency: string;
+	setupCount: number;
+	runCount: number;
+	displacementCc: number | null;
+	exhaust: string | null;
+	elevationM: number | null;
+	photos: boolean;
+};
+
+const KEY = {
+	newest: { col: 'b.id', dir: 'DESC' },
+	fastest: { col: 'COALESCE(b.best_speed_kmh, -1)', dir: 'DESC' },
+	cheapest: { col: 'b.parts_total_minor', dir: 'ASC' }
+} as const;
+
+function where(q: BuildListQuery, units: Units, text: string | null) {
+	const w = ["b.publication = 'published'", "b.moderation = 'visible'"];
+	const r: Record<string, unknown> = {};
+	const add = (sql: string, name: string, v: unknown) => {
+		w.push(sql);
+		r[name] = v;
+	};
+	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
+	if (q.family) add('b.engine_family = :family', 'family', q.family);
+	if (q.exhaust) add('s.exhaust_type = :exhaust', 'exhaust', q.exhaust);
+	if (q.ccMin !== undefined) add('s.displacement_cc >= :ccMin', 'ccMin', q.ccMin);
+	if (q.ccMax !== undefined) add('s.displacement_cc <= :ccMax', 'ccMax', q.ccMax);
+	const speed = (v: number) => toCanonical(v, 'speed', units);
+	const elev = (v: number) => toCanonical(v, 'elevation', units);
+	if (q.speedMin !== undefined) add('b.best_speed_kmh >= :speedMin', 'speedMin', speed(q.speedMin));
+	if (q.speedMax !== undefined) add('b.best_speed_kmh <= :speedMax', 'speedMax', speed(q.speedMax));
+	if (q.elevMin !== undefined)
+		add('s.best_run_elevation_m >= :elevMin', 'elevMin', elev(q.elevMin));
+	if (q.elevMax !== undefined)
+		add('s.best_run_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
+	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
+	if (q.runs === '1') w.push('b.run_count > 0');
+	if (text) {
+		// Titles and stories through one FULLTEXT index, part names through another; the union of the
+		// two id lists is small, so the rest of the filters apply to few rows.
+		add(
+			`b.id IN (SELECT id FROM builds WHERE MATCH(title, story) AGAINST (:text IN BOOLEAN MODE)
+				UNION SELECT build_id FROM parts WHERE MATCH(name) AGAINST (:text IN BOOLEAN MODE))`,
+			'text',
+			text
+		);
+	}
+	return { w, r };
+}
+
+function cursorWhere(q: BuildListQuery) {
+	if (!q.cursor) return null;
+	const [k, id] = Buffer.from(q.cursor, 'base64url').toString().split(':').map(Number);
+	if (!Number.isFinite(k) || !Number.isInteger(id)) return null;
+	const { col, dir } = KEY[q.sort];
+	const cmp = dir === 'DESC' ? '<' : '>';
+	// Ties on the key fall back to the id, always descending.
+	return { sql: `(${col} ${cmp} :ck OR (${col} = :ck AND b.id < :cid))`, r: { ck: k, cid: id } };
+}
+
+async function page(q: BuildListQuery, units: Units, text: string | null) {
+	const { w, r } = where(q, units, text);
+	const c = cursorWhere(q);
+	if (c) (w.push(c.sql), Object.assign(r, c.r));
+	const { col, dir } = KEY[q.sort];
+	const rows = await db().query<Record<string, unknown>>(
+		`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
+			b.currency, b.setup_count, b.run_count, u.name AS owner, ${col} AS sort_key,
+			s.displacement_cc, s.exhaust_type, s.best_run_elevation_m,
+			EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos
+		FROM builds b
+		LEFT JOIN setups s ON s.build_id = b.id AND s.listed = 1
+		LEFT JOIN users u ON u.id = b.owner_id
+		WHERE ${w.join(' AND ')}
+		ORDER BY ${col} ${dir}, b.id DESC LIMIT :limit`,
+		{ replacements: { ...r, limit: q.limit + 1 }, type: QueryTypes.SELECT }
+	);
+	const more = rows.length > q.limit;
+	const list = rows.slice(0, q.limit);
+	const last = list.at(-1);
+	return {
+		builds: list.map(toRow),
+		next:
+			more && last ? Buffer.from(`${Number(last.sort_key)}:${last.id}`).toString('base64url') : null
+	};
+}
+
+const n = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+function toRow(x: Record<string, unknown>): ListRow {
+	return {
+		id: Number(x.id),
+		title: String(x.title),
+		owner: (x.owner as string | null) ?? 'a member',
+		engineFamily: String(x.engine_family ?? ''),
+		bestSpeedKmh: n(x.best_speed_kmh),
+		stockSpeedKmh: n(x.stock_speed_kmh),
+		partsTotalMinor: Number(x.parts_total_minor),
+		currency: String(x.currency),
+		setupCount: Number(x.setup_count),
+		runCount: Number(x.run_count),
+		displacementCc: n(x.displacement_cc),
+		exhaust: (x.exhaust_type as string | null) ?? null,
+		elevationM: n(x.best_run_elevation_m),
+		photos: Boolean(Number(x.photos))
+	};
+}
+
+/**
+ * A page of the list. With words to search for and nothing found on the first page, the nearest
+ * known spelling is tried once; `didYouMean` then says what was searched instead.
+ */
+export async function listBuilds(q: BuildListQuery, units: Units) {
+	const text = q.q ? booleanQuery(q.q) : null;
+	// Only short words or stopwords: list without searching, and say so.
+	if (q.q && !text) return { ...(await page(q, units, null)), didYouMean: null, ignored: true };
+	const first = await page(q, units, text);
+	if (!q.q || first.builds.length || q.cursor)
+		return { ...first, didYouMean: null, ignored: false };
+	const fixed = await correct(q.q);
+	const fixedText = fixed ? booleanQuery(fixed) : null;
+	if (!fixed || !fixedText) return { ...first, didYouMean: null, ignored: false };
+	return { ...(await page(q, units, fixedText)), didYouMean: fixed, ignored: false };
+}

@@ -1,0 +1,56 @@
+import Fuse from 'fuse.js';
+import { QueryTypes } from 'sequelize';
+import { db } from '../db/connection';
+import { words } from './words';
+
+// Typo tolerance. FULLTEXT (in the builds list query) matches whole words and prefixes only, so a
+// misspelt part name finds nothing. The words of every distinct part name and engine family — a few
+// thousand terms, far fewer than the builds — are held here with a fuse.js index; when a search
+// finds nothing, each unknown word is swapped for its nearest term and the search runs once more.
+
+const FRESH_MS = 5 * 60_000;
+let held: { at: number; known: Set<string>; fuse: Fuse<string> } | null = null;
+
+async function load(now: number) {
+	if (held && now - held.at < FRESH_MS) return held;
+	const rows = await db().query<{ t: string }>(
+		`SELECT DISTINCT p.name AS t FROM parts p JOIN builds b ON b.id = p.build_id
+			WHERE b.publication = 'published' AND b.moderation = 'visible'
+		UNION SELECT DISTINCT engine_family FROM builds WHERE publication = 'published' AND engine_family <> ''
+		LIMIT 20000`,
+		{ type: QueryTypes.SELECT }
+	);
+	const known = new Set(rows.flatMap((r) => words(r.t)));
+	const list = [...known];
+	held = {
+		at: now,
+		known,
+		// Threshold 0.4: one or two letters wrong in a word of six or more; short words need a close match.
+		fuse: new Fuse(list, {
+			includeScore: true,
+			threshold: 0.4,
+			ignoreLocation: true,
+			minMatchCharLength: 3
+		})
+	};
+	return held;
+}
+
+/** The query with each unknown word replaced by the nearest known one, or null when nothing changed. */
+export async function correct(text: string, now = Date.now()): Promise<string | null> {
+	const v = await load(now);
+	let changed = false;
+	const out = words(text).map((w) => {
+		if (v.known.has(w) || /^\d+$/.test(w)) return w;
+		const best = v.fuse.search(w, { limit: 1 })[0];
+		if (!best) return w;
+		changed = true;
+		return best.item;
+	});
+	return changed ? out.join(' ') : null;
+}
+
+/** For tests and the benchmark: forget the held vocabulary. */
+export function forgetVocabulary() {
+	held = null;
+}

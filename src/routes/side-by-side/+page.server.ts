@@ -1,0 +1,32 @@
+import { unitsFor } from '$lib/server/sheets/units';
+import { loadColumns } from '$lib/server/stats/side-by-side';
+import { sideBySide } from '$lib/sheet/side-by-side';
+import { sideBySideQuerySchema } from '$lib/stats/pick';
+import type { PageServerLoad } from './$types';
+
+// Public; each build's own visibility rule still applies (drafts only for their owner).
+export const load: PageServerLoad = async (event) => {
+	// Repeated keys (?builds=3&builds=9, as a form of tick boxes sends them) or a comma list.
+	const p = event.url.searchParams;
+	const q = sideBySideQuerySchema.parse({
+		builds: p.getAll('builds').join(','),
+		setups: p.getAll('setups').join(',')
+	});
+	const units = unitsFor(event);
+	const by = q.setups.length ? 'setups' : 'builds';
+	const pick = by === 'setups' ? { setups: q.setups } : { builds: q.builds };
+	const { columns, missing } = await loadColumns(pick, event.locals.user ?? null);
+	return {
+		by,
+		units,
+		missing,
+		columns: columns.map(({ buildId, setupId, title, owner, position }) => ({
+			buildId,
+			setupId,
+			title,
+			owner,
+			position
+		})),
+		sections: sideBySide(columns, units)
+	};
+};
