@@ -1,0 +1,111 @@
+import { linearRegression, sampleCorrelation } from 'simple-statistics';
+import { QueryTypes } from 'sequelize';
+import { afterAll, describe, expect, it, vi } from 'vitest';
+import { buildListSchema } from '../../src/lib/schemas/build-list';
+import { listBuilds } from '../../src/lib/server/db/build-list';
+import { closeDb, db } from '../../src/lib/server/db/connection';
+import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
+import { MAX_POINTS, speedMap } from '../../src/lib/server/stats/speed-map';
+import { speedMapQuerySchema } from '../../src/lib/stats/schema';
+
+// Against the seeded demo sheets (invented, fixed seed) plus whatever earlier test files added.
+afterAll(closeDb);
+const map = (q: Record<string, unknown>) => speedMap(speedMapQuerySchema.parse(q));
+const list = (q: Record<string, unknown>) => listBuilds(buildListSchema.parse(q), 'metric');
+
+describe('speed map', () => {
+	it('returns the published setups with runs that pass the filters', async () => {
+		const all = await map({ x: 'displacement' });
+		const gpsChambers = await map({
+			x: 'displacement',
+			method: 'gps-logger',
+			pipe: 'expansion-chamber'
+		});
+		const [{ n }] = await db().query<{ n: number }>(
+			`SELECT COUNT(*) AS n FROM setups s JOIN builds b ON b.id = s.build_id
+			WHERE b.publication = 'published' AND b.moderation = 'visible' AND s.best_run_kmh IS NOT NULL
+				AND s.displacement_cc IS NOT NULL AND s.best_run_method = 'gps-logger' AND s.exhaust_type = 'expansion-chamber'`,
+			{ type: QueryTypes.SELECT }
+		);
+		expect(gpsChambers.total).toBe(Number(n));
+		expect(gpsChambers.total).toBeGreaterThan(0);
+		expect(gpsChambers.total).toBeLessThan(all.total);
+		expect(gpsChambers.points.every((p) => p.pipe === 'expansion-chamber')).toBe(true);
+	});
+
+	it('draws its trend line by least squares (checked against simple-statistics)', async () => {
+		const m = await map({ x: 'final-drive' });
+		expect(m.mode).toBe('points');
+		const pairs = m.points.map((p) => [Number(p.x), p.kmh]);
+		const ref = linearRegression(pairs);
+		expect(m.trend!.slope).toBeCloseTo(ref.m, 6);
+		expect(m.trend!.intercept).toBeCloseTo(ref.b, 6);
+		expect(m.trend!.r).toBeCloseTo(
+			sampleCorrelation(
+				pairs.map((p) => p[0]),
+				pairs.map((p) => p[1])
+			),
+			6
+		);
+		// A category across has no trend line.
+		expect((await map({ x: 'exhaust' })).trend).toBeNull();
+	});
+
+	it('makes the same two queries for a handful of points as for all of them, and bins beyond', async () => {
+		const spy = vi.spyOn(db(), 'query');
+		await map({ x: 'jet', method: 'radar', twoWay: '1', closed: '1' });
+		const few = spy.mock.calls.length;
+		spy.mockClear();
+		await map({ x: 'jet' });
+		expect(spy.mock.calls.length).toBe(few);
+		expect(few).toBe(2);
+		spy.mockRestore();
+		expect(MAX_POINTS).toBeGreaterThan(100);
+	});
+});
+
+describe('builds list and search', () => {
+	it('applies three filters together, in the reader’s units', async () => {
+		const page = await list({ exhaust: 'expansion-chamber', ccMin: 60, speedMin: 80, limit: 100 });
+		expect(page.builds.length).toBeGreaterThan(0);
+		for (const b of page.builds) {
+			expect(b.exhaust).toBe('expansion-chamber');
+			expect(b.displacementCc!).toBeGreaterThanOrEqual(60);
+			expect(b.bestSpeedKmh!).toBeGreaterThanOrEqual(80);
+		}
+		// 50 mph is 80.47 km/h (1 mi = 1.609344 km exactly, NIST SP 811).
+		const mph = await listBuilds(buildListSchema.parse({ speedMin: 50, limit: 100 }), 'imperial');
+		expect(mph.builds.every((b) => b.bestSpeedKmh! >= 80.4672)).toBe(true);
+	});
+
+	it('pages by key without overlap, fastest first', async () => {
+		const one = await list({ sort: 'fastest', limit: 5 });
+		const two = await list({ sort: 'fastest', limit: 5, cursor: one.next });
+		const ids = [...one.builds, ...two.builds].map((b) => b.id);
+		expect(new Set(ids).size).toBe(10);
+		const speeds = [...one.builds, ...two.builds].map((b) => b.bestSpeedKmh ?? -1);
+		expect(speeds).toEqual([...speeds].sort((a, b) => b - a));
+	});
+
+	it('finds words in part names and titles, and a misspelt part name through the nearest term', async () => {
+		forgetVocabulary();
+		const exact = await list({ q: 'Halvard', limit: 100 });
+		expect(exact.builds.length).toBeGreaterThan(0);
+		expect(exact.didYouMean).toBeNull();
+		const typo = await list({ q: 'Halvrad', limit: 100 });
+		expect(typo.didYouMean).toBe('halvard');
+		expect(typo.builds.map((b) => b.id)).toEqual(exact.builds.map((b) => b.id));
+		const nothing = await list({ q: 'zzqxv', limit: 10 });
+		expect(nothing.builds).toEqual([]);
+	});
+
+	it('makes the same number of queries for a page of 5 as for a page of 100', async () => {
+		const spy = vi.spyOn(db(), 'query');
+		await list({ exhaust: 'stock', ccMax: 55, limit: 5 });
+		const five = spy.mock.calls.length;
+		spy.mockClear();
+		await list({ exhaust: 'stock', ccMax: 55, limit: 100 });
+		expect(spy.mock.calls.length).toBe(five);
+		spy.mockRestore();
+	});
+});
