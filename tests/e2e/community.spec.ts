@@ -1,0 +1,81 @@
+import { expect, test } from '@playwright/test';
+
+// An anonymous newcomer asking the published sheets "what works?" (demo data: invented, fixed seed).
+
+test('the speed map narrows to GPS runs and expansion chambers, and its points change', async ({
+	page
+}) => {
+	await page.goto('/speed-map?x=final-drive');
+	await page.waitForLoadState('networkidle');
+	const count = page.getByTestId('map-count');
+	const before = Number((await count.innerText()).replace(/,/g, ''));
+	expect(before).toBeGreaterThan(0);
+	await expect(page.locator('.speed-map-chart svg').first()).toBeVisible();
+
+	const settings = page.getByRole('form', { name: 'Speed map settings' });
+	await settings.getByLabel('GPS logger').check();
+	await settings.getByLabel('expansion chamber').check();
+	await expect(page).toHaveURL(/method=gps-logger/);
+	await expect(page).toHaveURL(/pipe=expansion-chamber/);
+	await expect
+		.poll(async () => Number((await count.innerText()).replace(/,/g, '')))
+		.toBeLessThan(before);
+
+	// The table view carries the same points: every one an expansion chamber now.
+	await page.getByText('The same data as a table').click();
+	const rows = page.getByRole('table').getByRole('row');
+	await expect(rows.nth(1)).toBeVisible();
+	const exhausts = await rows.locator('td:nth-child(3)').allInnerTexts();
+	expect(exhausts.length).toBeGreaterThan(0);
+	expect(new Set(exhausts)).toEqual(new Set(['expansion chamber']));
+
+	// The state is in the address: reloading shows the same filtered map (other tests may publish
+	// meanwhile, so the settings are compared, not the exact count).
+	await page.reload();
+	await expect(settings.getByLabel('GPS logger')).toBeChecked();
+	await expect(settings.getByLabel('expansion chamber')).toBeChecked();
+	await expect(settings.getByLabel('radar')).not.toBeChecked();
+});
+
+test('change effects tells what a final-drive change did, with the pairs behind it', async ({
+	page
+}) => {
+	await page.goto('/change-effects');
+	await expect(page.getByRole('heading', { name: 'Which steps count' })).toBeVisible();
+	const row = page.getByRole('row', { name: /Final-drive gears/ });
+	await expect(row).toContainText(/\+\d+\.\d\skm\/h/); // a median gain, sign spelled out
+	await row.getByRole('link', { name: 'Final-drive gears' }).click();
+	await expect(page).toHaveURL(/kind=final-drive/);
+	await expect(
+		page.getByRole('heading', { name: /Final-drive gears: the \d+ pairs/ })
+	).toBeVisible();
+	await expect(page.getByText('One tooth taller on the primary gears').first()).toBeVisible();
+});
+
+test('three builds side by side, with their differences marked', async ({ page }) => {
+	await page.goto('/builds?view=table&q=one+change');
+	const boxes = page.getByRole('checkbox', { name: /Pick .* for side by side/ });
+	await expect(boxes.first()).toBeVisible();
+	for (let i = 0; i < 3; i++) await boxes.nth(i).check();
+	await page.getByRole('button', { name: 'Side by side (3)' }).click();
+	await expect(page).toHaveURL(/\/side-by-side\?builds=\d+&builds=\d+&builds=\d+/);
+	const table = page.getByRole('table');
+	await expect(table.locator('thead th')).toHaveCount(5); // marker, field, three builds
+	const differing = table.locator('tr[data-differs="yes"]');
+	await expect(differing.first()).toBeVisible();
+	await expect(differing.first()).toContainText('differs'); // said in words, not colour alone
+	const all = await table.locator('tbody tr[data-differs]').count();
+	await page.getByLabel(/only rows that differ/).check();
+	await expect.poll(() => table.locator('tbody tr[data-differs]').count()).toBeLessThan(all);
+	await expect(table.locator('tr[data-differs="no"]')).toHaveCount(0);
+});
+
+test('a misspelt part name still finds its builds', async ({ page }) => {
+	await page.goto('/builds');
+	await page.getByLabel('Search titles, stories and part names').fill('Halvrad');
+	await page.getByRole('button', { name: 'Show' }).click();
+	await expect(page.getByRole('status')).toContainText('Did you mean halvard?');
+	const first = page.getByRole('article').first();
+	await first.getByRole('link').click();
+	await expect(page.getByRole('region', { name: 'Parts' })).toContainText('Halvard');
+});
