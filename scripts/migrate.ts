@@ -2,7 +2,7 @@
 import { QueryTypes } from 'sequelize';
 import { closeDb, db } from '../src/lib/server/db/connection';
 import { migrator } from '../src/lib/server/db/migrator';
-import { recomputeSetup, refreshSteps } from '../src/lib/server/sheets/recompute';
+import { refreshSteps } from '../src/lib/server/sheets/recompute';
 
 const done = await migrator().up();
 console.log(
@@ -15,7 +15,7 @@ if (done.some((m) => m.name === '2026.12.02T04.00.00.stats-and-search')) {
 		'SELECT id, build_id FROM setups ORDER BY build_id, position',
 		{ type: QueryTypes.SELECT }
 	);
-	for (const s of ids) await recomputeSetup(s.id);
+	// The migration filled the best-run columns in SQL; only the steps need the configurations.
 	for (const b of new Set(ids.map((s) => s.build_id))) await refreshSteps(b);
 	console.log(`  change steps filled for ${ids.length} setups`);
 }

@@ -53,10 +53,10 @@ children.push({ name: 'mariadb', ...dbServer });
 console.log(`· MariaDB on 127.0.0.1:${e.DB_PORT}, database ${e.DB_NAME}`);
 if (mode === 'perf') {
 	await tsx('scripts/migrate.ts', 'migrations');
-	console.log('\n▸ benchmark: close builds');
+	console.log('\n▸ benchmark');
 	const code = await run(
 		process.execPath,
-		['--import', 'tsx', 'tests/perf/close-builds.bench.ts', ...process.argv.slice(3)],
+		['--import', 'tsx', 'tests/perf/bench.ts', ...process.argv.slice(3)],
 		{ cwd: ROOT, env }
 	);
 	await shutdown(code);

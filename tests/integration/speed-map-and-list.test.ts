@@ -14,7 +14,7 @@ const map = (q: Record<string, unknown>) => speedMap(speedMapQuerySchema.parse(q
 const list = (q: Record<string, unknown>) => listBuilds(buildListSchema.parse(q), 'metric');
 
 describe('speed map', () => {
-	it('returns the published setups with runs that pass the filters', async () => {
+	it('returns each published build’s latest measured setup that passes the filters', async () => {
 		const all = await map({ x: 'displacement' });
 		const gpsChambers = await map({
 			x: 'displacement',
@@ -23,7 +23,8 @@ describe('speed map', () => {
 		});
 		const [{ n }] = await db().query<{ n: number }>(
 			`SELECT COUNT(*) AS n FROM setups s JOIN builds b ON b.id = s.build_id
-			WHERE b.publication = 'published' AND b.moderation = 'visible' AND s.best_run_kmh IS NOT NULL
+			WHERE b.publication = 'published' AND b.moderation = 'visible'
+				AND s.position = (SELECT MAX(s2.position) FROM setups s2 WHERE s2.build_id = b.id AND s2.best_run_kmh IS NOT NULL)
 				AND s.displacement_cc IS NOT NULL AND s.best_run_method = 'gps-logger' AND s.exhaust_type = 'expansion-chamber'`,
 			{ type: QueryTypes.SELECT }
 		);
@@ -51,7 +52,30 @@ describe('speed map', () => {
 		expect((await map({ x: 'exhaust' })).trend).toBeNull();
 	});
 
-	it('makes the same two queries for a handful of points as for all of them, and bins beyond', async () => {
+	it('sends bins instead of points beyond the limit, with the same total and trend', async () => {
+		const q = speedMapQuerySchema.parse({ x: 'displacement' });
+		const points = await speedMap(q);
+		const bins = await speedMap(q, 10);
+		expect(points.mode).toBe('points');
+		expect(bins.mode).toBe('bins');
+		expect(bins.total).toBe(points.total);
+		expect(bins.bins.reduce((a, b) => a + b.n, 0)).toBe(points.total);
+		for (const b of bins.bins) {
+			const inside = points.points.filter(
+				(p) =>
+					p.pipe === b.pipe &&
+					(p.x as number) >= (b.x as number) &&
+					(p.x as number) < b.x2! &&
+					p.kmh >= b.y &&
+					p.kmh < b.y2
+			);
+			expect(inside.length).toBe(b.n);
+		}
+		expect(bins.trend!.slope).toBeCloseTo(points.trend!.slope, 9);
+		expect(bins.trend!.intercept).toBeCloseTo(points.trend!.intercept, 9);
+	});
+
+	it('makes the same two queries for a handful of points as for all of them, and as for bins', async () => {
 		const spy = vi.spyOn(db(), 'query');
 		await map({ x: 'jet', method: 'radar', twoWay: '1', closed: '1' });
 		const few = spy.mock.calls.length;
@@ -59,6 +83,9 @@ describe('speed map', () => {
 		await map({ x: 'jet' });
 		expect(spy.mock.calls.length).toBe(few);
 		expect(few).toBe(2);
+		spy.mockClear();
+		await speedMap(speedMapQuerySchema.parse({ x: 'jet' }), 5);
+		expect(spy.mock.calls.length).toBe(2);
 		spy.mockRestore();
 		expect(MAX_POINTS).toBeGreaterThan(100);
 	});

@@ -26,9 +26,11 @@ export type ListRow = {
 	photos: boolean;
 };
 
+// Each order walks an index (id; best speed, id; parts total, id), so a page reads about its own
+// rows. The id breaks ties in the key's direction. MariaDB sorts NULL speeds last when descending.
 const KEY = {
 	newest: { col: 'b.id', dir: 'DESC' },
-	fastest: { col: 'COALESCE(b.best_speed_kmh, -1)', dir: 'DESC' },
+	fastest: { col: 'b.best_speed_kmh', dir: 'DESC' },
 	cheapest: { col: 'b.parts_total_minor', dir: 'ASC' }
 } as const;
 
@@ -54,27 +56,29 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 		add('s.best_run_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
 	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
 	if (q.runs === '1') w.push('b.run_count > 0');
-	if (text) {
-		// Titles and stories through one FULLTEXT index, part names through another; the union of the
-		// two id lists is small, so the rest of the filters apply to few rows.
-		add(
-			`b.id IN (SELECT id FROM builds WHERE MATCH(title, story) AGAINST (:text IN BOOLEAN MODE)
-				UNION SELECT build_id FROM parts WHERE MATCH(name) AGAINST (:text IN BOOLEAN MODE))`,
-			'text',
-			text
-		);
-	}
+	if (text) r.text = text;
 	return { w, r };
 }
 
+// Titles and stories through one FULLTEXT index, part names through another. Their union of ids is
+// worked out once (a derived table) and joined, so the other filters apply to the matches only.
+const MATCHED = `JOIN (SELECT id FROM builds WHERE MATCH(title, story) AGAINST (:text IN BOOLEAN MODE)
+	UNION SELECT build_id FROM parts WHERE MATCH(name) AGAINST (:text IN BOOLEAN MODE)) m ON m.id = b.id`;
+
 function cursorWhere(q: BuildListQuery) {
 	if (!q.cursor) return null;
-	const [k, id] = Buffer.from(q.cursor, 'base64url').toString().split(':').map(Number);
-	if (!Number.isFinite(k) || !Number.isInteger(id)) return null;
+	const [k, id] = Buffer.from(q.cursor, 'base64url').toString().split(':');
+	const cid = Number(id);
+	if (!Number.isInteger(cid)) return null;
 	const { col, dir } = KEY[q.sort];
 	const cmp = dir === 'DESC' ? '<' : '>';
-	// Ties on the key fall back to the id, always descending.
-	return { sql: `(${col} ${cmp} :ck OR (${col} = :ck AND b.id < :cid))`, r: { ck: k, cid: id } };
+	const after = `(${col} = :ck AND b.id ${cmp} :cid)`;
+	// A cursor on a build without a best speed ("null"): only more of those follow.
+	if (k === 'null') return { sql: `(${col} IS NULL AND b.id ${cmp} :cid)`, r: { cid } };
+	const ck = Number(k);
+	if (!Number.isFinite(ck)) return null;
+	const nullsAfter = q.sort === 'fastest' ? ` OR ${col} IS NULL` : '';
+	return { sql: `(${col} ${cmp} :ck OR ${after}${nullsAfter})`, r: { ck, cid } };
 }
 
 async function page(q: BuildListQuery, units: Units, text: string | null) {
@@ -87,11 +91,11 @@ async function page(q: BuildListQuery, units: Units, text: string | null) {
 			b.currency, b.setup_count, b.run_count, u.name AS owner, ${col} AS sort_key,
 			s.displacement_cc, s.exhaust_type, s.best_run_elevation_m,
 			EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos
-		FROM builds b
+		FROM builds b ${text ? MATCHED : ''}
 		LEFT JOIN setups s ON s.build_id = b.id AND s.listed = 1
 		LEFT JOIN users u ON u.id = b.owner_id
 		WHERE ${w.join(' AND ')}
-		ORDER BY ${col} ${dir}, b.id DESC LIMIT :limit`,
+		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
 		{ replacements: { ...r, limit: q.limit + 1 }, type: QueryTypes.SELECT }
 	);
 	const more = rows.length > q.limit;
@@ -100,7 +104,11 @@ async function page(q: BuildListQuery, units: Units, text: string | null) {
 	return {
 		builds: list.map(toRow),
 		next:
-			more && last ? Buffer.from(`${Number(last.sort_key)}:${last.id}`).toString('base64url') : null
+			more && last
+				? Buffer.from(
+						`${last.sort_key === null ? 'null' : Number(last.sort_key)}:${last.id}`
+					).toString('base64url')
+				: null
 	};
 }
 

@@ -6,8 +6,7 @@ import { stepRun } from '../sheets/recompute';
 
 // What each kind of change did across the published sheets. Pairs are judged when a sheet is saved
 // (src/lib/sheet/change-kinds.ts; stored as setups.change_kind and setups.effect_kmh), so these are
-// scans of one covering index; the median and quartiles are MariaDB's PERCENTILE_CONT (linear
-// interpolation between the two nearest ranks).
+// reads of one covering index, sorted by kind and speed change.
 
 export type KindSummary = {
 	kind: ChangeKind;
@@ -20,39 +19,64 @@ export type KindSummary = {
 };
 
 export async function summarise(): Promise<KindSummary[]> {
-	const [stats, left] = await Promise.all([
-		db().query<{ kind: string; n: number; median: number; q1: number; q3: number }>(
-			`SELECT DISTINCT change_kind AS kind,
-				COUNT(*) OVER (PARTITION BY change_kind) AS n,
-				PERCENTILE_CONT(0.5) WITHIN GROUP (ORDER BY effect_kmh) OVER (PARTITION BY change_kind) AS median,
-				PERCENTILE_CONT(0.25) WITHIN GROUP (ORDER BY effect_kmh) OVER (PARTITION BY change_kind) AS q1,
-				PERCENTILE_CONT(0.75) WITHIN GROUP (ORDER BY effect_kmh) OVER (PARTITION BY change_kind) AS q3
-			FROM setups FORCE INDEX (setups_change_effects)
-			WHERE any_listed = 1 AND change_kind IN (:kinds) AND effect_kmh IS NOT NULL`,
-			{ replacements: { kinds: CHANGE_KINDS.map((k) => k.kind) }, type: QueryTypes.SELECT }
-		),
-		// Single-kind steps that were left out (method or air), to say how many and why on the page.
-		db().query<{ kind: string; n: number }>(
-			`SELECT change_kind AS kind, COUNT(*) AS n FROM setups FORCE INDEX (setups_change_effects)
-			WHERE any_listed = 1 AND change_kind IN (:kinds) AND effect_kmh IS NULL GROUP BY change_kind`,
-			{ replacements: { kinds: CHANGE_KINDS.map((k) => k.kind) }, type: QueryTypes.SELECT }
-		)
-	]);
-	const byKind = new Map(stats.map((s) => [s.kind, s]));
-	const leftOut = new Map(left.map((s) => [s.kind, Number(s.n)]));
-	const num = (v: number | undefined) => (v === undefined || v === null ? null : Number(v));
-	return CHANGE_KINDS.map(({ kind, label }) => {
-		const s = byKind.get(kind);
-		return {
-			kind,
-			label,
-			pairs: s ? Number(s.n) : 0,
-			excluded: leftOut.get(kind) ?? 0,
-			medianKmh: num(s?.median),
-			q1Kmh: num(s?.q1),
-			q3Kmh: num(s?.q3)
-		};
+	const kinds = CHANGE_KINDS.map((k) => k.kind);
+	const counts = await db().query<{ kind: string; n: number; left_out: number }>(
+		`SELECT change_kind AS kind, SUM(effect_kmh IS NOT NULL) AS n, SUM(effect_kmh IS NULL) AS left_out
+		FROM setups FORCE INDEX (setups_change_effects)
+		WHERE any_listed = 1 AND change_kind IN (:kinds) GROUP BY change_kind`,
+		{ replacements: { kinds }, type: QueryTypes.SELECT }
+	);
+	const n = new Map(counts.map((c) => [c.kind, Number(c.n)]));
+	const leftOut = new Map(counts.map((c) => [c.kind, Number(c.left_out)]));
+	// Quartiles by linear interpolation between order statistics (R-7, as PERCENTILE_CONT and most
+	// statistics packages do): h = (n − 1)·p, between the values at ranks ⌊h⌋ and ⌊h⌋ + 1. The index
+	// keeps each kind's speed changes sorted, so each pair of ranks is read at its offset — from the
+	// nearer end — in one statement for all kinds.
+	const wanted: { kind: string; p: number; lo: number; h: number }[] = [];
+	for (const kind of kinds) {
+		const m = n.get(kind) ?? 0;
+		if (m === 0) continue;
+		for (const p of [0.25, 0.5, 0.75]) {
+			const h = (m - 1) * p;
+			wanted.push({ kind, p, lo: Math.floor(h), h });
+		}
+	}
+	const repl: Record<string, unknown> = {};
+	const parts = wanted.map((w, i) => {
+		const m = n.get(w.kind)!;
+		const fromTop = w.lo > m / 2;
+		repl[`k${i}`] = w.kind;
+		// Ranks ⌊h⌋ and ⌊h⌋ + 1 counted from the bottom, or the same two from the top (m − 2 − ⌊h⌋ ≥ 0,
+		// since ⌊h⌋ ≤ 0.75·(m − 1) < m − 1 whenever the top is nearer).
+		const offset = fromTop ? m - 2 - w.lo : w.lo;
+		return `(SELECT ${i} AS i, effect_kmh AS v FROM setups FORCE INDEX (setups_change_effects)
+			WHERE any_listed = 1 AND change_kind = :k${i} AND effect_kmh IS NOT NULL
+			ORDER BY effect_kmh ${fromTop ? 'DESC' : 'ASC'} LIMIT 2 OFFSET ${offset})`;
 	});
+	const ranks = parts.length
+		? await db().query<{ i: number; v: number }>(parts.join(' UNION ALL '), {
+				replacements: repl,
+				type: QueryTypes.SELECT
+			})
+		: [];
+	const values = new Map<number, number[]>();
+	for (const r of ranks) values.set(Number(r.i), [...(values.get(Number(r.i)) ?? []), Number(r.v)]);
+	const q = new Map<string, number>();
+	wanted.forEach((w, i) => {
+		// One value only when the kind has a single pair.
+		const [low, high = low] = (values.get(i) ?? []).sort((x, y) => x - y);
+		q.set(`${w.kind}:${w.p}`, low + (w.h - w.lo) * (high - low));
+	});
+	const get = (kind: string, p: number) => q.get(`${kind}:${p}`) ?? null;
+	return CHANGE_KINDS.map(({ kind, label }) => ({
+		kind,
+		label,
+		pairs: n.get(kind) ?? 0,
+		excluded: leftOut.get(kind) ?? 0,
+		medianKmh: get(kind, 0.5),
+		q1Kmh: get(kind, 0.25),
+		q3Kmh: get(kind, 0.75)
+	}));
 }
 
 export type Pair = {
@@ -74,7 +98,7 @@ export async function pairsFor(kind: ChangeKind, limit = 50, offset = 0): Promis
 		FROM setups s FORCE INDEX (setups_change_effects)
 		JOIN setups p ON p.id = s.prev_setup_id JOIN builds b ON b.id = s.build_id
 		WHERE s.any_listed = 1 AND s.change_kind = :kind AND s.effect_kmh IS NOT NULL
-		ORDER BY s.effect_kmh DESC, s.id LIMIT :limit OFFSET :offset`,
+		ORDER BY s.effect_kmh DESC, s.id DESC LIMIT :limit OFFSET :offset`,
 		{ replacements: { kind, limit, offset }, type: QueryTypes.SELECT }
 	);
 	return rows.map((r) => ({

@@ -3,11 +3,12 @@ import type { Migration } from '../migrator';
 
 // Columns and indexes for the speed map, change effects, the builds list's filters and search.
 // Every setup carries what its best run was measured with (method, two-way, venue, air density) and
-// its build's engine family, so the speed map aggregates over one covering index with no join. A
+// its build's engine family, so the speed map (one mark per build: its representative setup) aggregates over one covering index
+// with no join. A
 // setup also knows the setup before it, the kind of change it made and, when the pair passes the
 // rules in src/lib/sheet/change-kinds.ts, the speed change: change effects is then one index scan.
 const SPEED_MAP = [
-	'any_listed',
+	'listed',
 	'engine_cycle',
 	'best_run_method',
 	'best_run_two_way',
@@ -49,6 +50,7 @@ export const up: Migration = async ({ context: q }) => {
 	});
 	await q.addIndex('builds', ['engine_family'], { name: 'builds_engine_family' });
 	await q.addIndex('builds', ['best_speed_kmh', 'id'], { name: 'builds_best_speed' });
+	await q.addIndex('builds', ['parts_total_minor', 'id'], { name: 'builds_parts_total' });
 	await q.sequelize.query('ALTER TABLE builds ADD FULLTEXT INDEX builds_text (title, story)');
 	await q.sequelize.query('ALTER TABLE parts ADD FULLTEXT INDEX parts_name_text (name)');
 };
@@ -56,6 +58,7 @@ export const up: Migration = async ({ context: q }) => {
 export const down: Migration = async ({ context: q }) => {
 	await q.removeIndex('parts', 'parts_name_text');
 	await q.removeIndex('builds', 'builds_text');
+	await q.removeIndex('builds', 'builds_parts_total');
 	await q.removeIndex('builds', 'builds_best_speed');
 	await q.removeIndex('builds', 'builds_engine_family');
 	await q.removeIndex('setups', 'setups_change_effects');
