@@ -2,7 +2,7 @@ import { linearRegression, sampleCorrelation } from 'simple-statistics';
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { buildListSchema } from '../../src/lib/schemas/build-list';
-import { listBuilds } from '../../src/lib/server/db/build-list';
+import { LIST_TUNING, listBuilds } from '../../src/lib/server/db/build-list';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { MAX_POINTS, speedMap } from '../../src/lib/server/stats/speed-map';
@@ -103,6 +103,31 @@ describe('builds list and search', () => {
 		// 50 mph is 80.47 km/h (1 mi = 1.609344 km exactly, NIST SP 811).
 		const mph = await listBuilds(buildListSchema.parse({ speedMin: 50, limit: 100 }), 'imperial');
 		expect(mph.builds.every((b) => b.bestSpeedKmh! >= 80.4672)).toBe(true);
+	});
+
+	it('finds the same page whether it starts from the matching setups or walks the order', async () => {
+		const asks = [
+			{ exhaust: 'expansion-chamber', ccMin: 60, sort: 'fastest' },
+			{ exhaust: 'stock', ccMax: 55, speedMin: 40, sort: 'newest' },
+			{ elevMin: 300, elevMax: 1500, sort: 'cheapest' },
+			{ ccMin: 45, ccMax: 75, cycle: 'two-stroke', sort: 'fastest' }
+		];
+		const saved = LIST_TUNING.sparse;
+		try {
+			for (const a of asks) {
+				LIST_TUNING.sparse = 1e9; // always start from the setups
+				const fromSetups = await list({ ...a, limit: 7 });
+				const next1 = await list({ ...a, limit: 7, cursor: fromSetups.next });
+				LIST_TUNING.sparse = 0; // always walk the order's index
+				const walked = await list({ ...a, limit: 7 });
+				const next2 = await list({ ...a, limit: 7, cursor: walked.next });
+				expect(walked.builds.map((b) => b.id)).toEqual(fromSetups.builds.map((b) => b.id));
+				expect(next2.builds.map((b) => b.id)).toEqual(next1.builds.map((b) => b.id));
+				expect(walked.builds.length).toBeGreaterThan(0);
+			}
+		} finally {
+			LIST_TUNING.sparse = saved;
+		}
 	});
 
 	it('pages by key without overlap, fastest first', async () => {

@@ -6,8 +6,10 @@ import { correct } from '../search/vocabulary';
 import { db } from './connection';
 
 // The public builds list: filters on the build and on its representative setup (the one close builds
-// ranks, `setups.listed`), keyset pages, and search. One query per page whatever its size; a search
-// that finds nothing makes one more with the nearest spelling (see ../search/vocabulary.ts).
+// ranks, `setups.listed`), keyset pages, and search. A page is found in two steps whatever its size:
+// the ids in order (the filtering and sorting), then the details of just those rows. How the ids are
+// found depends on the filters (see pageIds). A search that finds nothing makes one more try with the
+// nearest spelling (see ../search/vocabulary.ts).
 
 export type ListRow = {
 	id: number;
@@ -43,7 +45,7 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 	};
 	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
 	if (q.family) add('b.engine_family = :family', 'family', q.family);
-	if (q.exhaust) add('s.exhaust_type = :exhaust', 'exhaust', q.exhaust);
+	if (q.exhaust) add('s.close_pipe = :exhaust', 'exhaust', q.exhaust);
 	if (q.ccMin !== undefined) add('s.displacement_cc >= :ccMin', 'ccMin', q.ccMin);
 	if (q.ccMax !== undefined) add('s.displacement_cc <= :ccMax', 'ccMax', q.ccMax);
 	const speed = (v: number) => toCanonical(v, 'speed', units);
@@ -56,14 +58,15 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 		add('s.best_run_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
 	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
 	if (q.runs === '1') w.push('b.run_count > 0');
-	if (text) r.text = text;
+	if (text)
+		add('MATCH(b.title, b.story, b.parts_text) AGAINST (:text IN BOOLEAN MODE)', 'text', text);
 	return { w, r };
 }
 
-// Titles and stories through one FULLTEXT index, part names through another. Their union of ids is
-// worked out once (a derived table) and joined, so the other filters apply to the matches only.
-const MATCHED = `JOIN (SELECT id FROM builds WHERE MATCH(title, story) AGAINST (:text IN BOOLEAN MODE)
-	UNION SELECT build_id FROM parts WHERE MATCH(name) AGAINST (:text IN BOOLEAN MODE)) m ON m.id = b.id`;
+/** Fewer representative setups than `sparse` pass the setup filters: start from them, not the order. */
+export const LIST_TUNING = { sparse: 10_000 };
+const hasSetupFilter = (q: BuildListQuery) =>
+	Boolean(q.exhaust) || [q.ccMin, q.ccMax, q.elevMin, q.elevMax].some((v) => v !== undefined);
 
 function cursorWhere(q: BuildListQuery) {
 	if (!q.cursor) return null;
@@ -81,28 +84,74 @@ function cursorWhere(q: BuildListQuery) {
 	return { sql: `(${col} ${cmp} :ck OR ${after}${nullsAfter})`, r: { ck, cid } };
 }
 
-async function page(q: BuildListQuery, units: Units, text: string | null) {
+/**
+ * The page's ids in order. Three ways, cheapest first for what was asked:
+ * - words to search: the FULLTEXT index finds the matches, which are then filtered and sorted;
+ * - setup filters that few builds pass (a counting probe on setups_list stops at LIST_TUNING.sparse): start
+ *   from those setups and sort what survives;
+ * - otherwise walk the order's index (id, best speed or parts total) and stop after a page.
+ *   Walking is what keeps a plain list fast; starting from rare matches is what keeps a narrow
+ *   filter fast when the walk would pass most builds by (fast kits first, say, when asking for 50 cc).
+ */
+async function pageIds(q: BuildListQuery, units: Units, text: string | null) {
 	const { w, r } = where(q, units, text);
 	const c = cursorWhere(q);
 	if (c) (w.push(c.sql), Object.assign(r, c.r));
 	const { col, dir } = KEY[q.sort];
-	const rows = await db().query<Record<string, unknown>>(
-		`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
-			b.currency, b.setup_count, b.run_count, u.name AS owner, ${col} AS sort_key,
-			s.displacement_cc, s.exhaust_type, s.best_run_elevation_m,
-			EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos
-		FROM builds b ${text ? MATCHED : ''}
-		LEFT JOIN setups s ON s.build_id = b.id AND s.listed = 1
-		LEFT JOIN users u ON u.id = b.owner_id
-		WHERE ${w.join(' AND ')}
+	const setups = hasSetupFilter(q);
+	let from = setups ? 'builds b JOIN setups s ON s.build_id = b.id AND s.listed = 1' : 'builds b';
+	if (setups && !text) {
+		const probe = where(
+			{
+				...q,
+				cycle: undefined,
+				family: undefined,
+				speedMin: undefined,
+				speedMax: undefined,
+				photos: undefined,
+				runs: undefined
+			},
+			units,
+			null
+		);
+		const sw = probe.w.filter((x) => x.startsWith('s.'));
+		const [{ n }] = await db().query<{ n: number }>(
+			`SELECT COUNT(*) AS n FROM (SELECT 1 FROM setups s FORCE INDEX (setups_list) WHERE s.listed = 1 AND ${sw.join(' AND ')} LIMIT ${LIST_TUNING.sparse}) x`,
+			{ replacements: probe.r, type: QueryTypes.SELECT }
+		);
+		if (Number(n) < LIST_TUNING.sparse)
+			from =
+				'setups s FORCE INDEX (setups_list) STRAIGHT_JOIN builds b ON b.id = s.build_id AND s.listed = 1';
+	}
+	const rows = await db().query<{ id: number; sort_key: number | null }>(
+		`SELECT b.id, ${col} AS sort_key FROM ${from} WHERE ${w.join(' AND ')}
 		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
 		{ replacements: { ...r, limit: q.limit + 1 }, type: QueryTypes.SELECT }
 	);
-	const more = rows.length > q.limit;
-	const list = rows.slice(0, q.limit);
-	const last = list.at(-1);
+	return rows;
+}
+
+async function page(q: BuildListQuery, units: Units, text: string | null) {
+	const ids = await pageIds(q, units, text);
+	const more = ids.length > q.limit;
+	const mine = ids.slice(0, q.limit);
+	const last = mine.at(-1);
+	const rows = mine.length
+		? await db().query<Record<string, unknown>>(
+				`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
+				b.currency, b.setup_count, b.run_count, u.name AS owner,
+				s.displacement_cc, s.exhaust_type, s.best_run_elevation_m,
+				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos
+			FROM builds b
+			LEFT JOIN setups s ON s.build_id = b.id AND s.listed = 1
+			LEFT JOIN users u ON u.id = b.owner_id
+			WHERE b.id IN (:ids)`,
+				{ replacements: { ids: mine.map((x) => x.id) }, type: QueryTypes.SELECT }
+			)
+		: [];
+	const byId = new Map(rows.map((x) => [Number(x.id), toRow(x)]));
 	return {
-		builds: list.map(toRow),
+		builds: mine.map((x) => byId.get(Number(x.id))!).filter(Boolean),
 		next:
 			more && last
 				? Buffer.from(

@@ -66,6 +66,7 @@ export async function recomputeBuild(buildId: number): Promise<void> {
 		setups: number;
 		runs: number;
 		parts: number | null;
+		names: string | null;
 		best: number | null;
 		stock: number | null;
 	}>(
@@ -73,6 +74,7 @@ export async function recomputeBuild(buildId: number): Promise<void> {
 			(SELECT COUNT(*) FROM setups WHERE build_id = :id) AS setups,
 			(SELECT COUNT(*) FROM runs WHERE build_id = :id) AS runs,
 			(SELECT SUM(cost_minor) FROM parts WHERE build_id = :id) AS parts,
+			(SELECT GROUP_CONCAT(name ORDER BY id SEPARATOR ' · ') FROM parts WHERE build_id = :id) AS names,
 			(SELECT MAX(speed_kmh) FROM runs WHERE build_id = :id) AS best,
 			(SELECT s.best_run_kmh FROM setups s WHERE s.build_id = :id AND s.is_stock = 1 ORDER BY s.position LIMIT 1) AS stock`,
 		{ replacements: { id: buildId }, type: QueryTypes.SELECT }
@@ -82,6 +84,8 @@ export async function recomputeBuild(buildId: number): Promise<void> {
 			setupCount: Number(row.setups),
 			runCount: Number(row.runs),
 			partsTotalMinor: Number(row.parts ?? 0),
+			// Searched together with the title and story (one FULLTEXT index on builds).
+			partsText: row.names ?? '',
 			bestSpeedKmh: row.best === null ? null : Number(row.best),
 			stockSpeedKmh: row.stock === null ? null : Number(row.stock)
 		},

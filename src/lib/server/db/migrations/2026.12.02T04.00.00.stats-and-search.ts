@@ -51,13 +51,33 @@ export const up: Migration = async ({ context: q }) => {
 	await q.addIndex('builds', ['engine_family'], { name: 'builds_engine_family' });
 	await q.addIndex('builds', ['best_speed_kmh', 'id'], { name: 'builds_best_speed' });
 	await q.addIndex('builds', ['parts_total_minor', 'id'], { name: 'builds_parts_total' });
-	await q.sequelize.query('ALTER TABLE builds ADD FULLTEXT INDEX builds_text (title, story)');
-	await q.sequelize.query('ALTER TABLE parts ADD FULLTEXT INDEX parts_name_text (name)');
+	// Setup filters of the builds list, for when few builds pass them (see db/build-list.ts).
+	await q.addIndex(
+		'setups',
+		['listed', 'close_pipe', 'displacement_cc', 'best_run_elevation_m', 'build_id'],
+		{
+			name: 'setups_list'
+		}
+	);
+	// Search: the part names are copied onto their build (on every save), so one FULLTEXT index
+	// covers title, story and parts and a search is a single MATCH.
+	await q.addColumn('builds', 'parts_text', {
+		type: DataTypes.TEXT,
+		allowNull: false,
+		defaultValue: ''
+	});
+	await q.sequelize.query(
+		"UPDATE builds b SET parts_text = COALESCE((SELECT GROUP_CONCAT(p.name ORDER BY p.id SEPARATOR ' · ') FROM parts p WHERE p.build_id = b.id), '')"
+	);
+	await q.sequelize.query(
+		'ALTER TABLE builds ADD FULLTEXT INDEX builds_text (title, story, parts_text)'
+	);
 };
 
 export const down: Migration = async ({ context: q }) => {
-	await q.removeIndex('parts', 'parts_name_text');
 	await q.removeIndex('builds', 'builds_text');
+	await q.removeColumn('builds', 'parts_text');
+	await q.removeIndex('setups', 'setups_list');
 	await q.removeIndex('builds', 'builds_parts_total');
 	await q.removeIndex('builds', 'builds_best_speed');
 	await q.removeIndex('builds', 'builds_engine_family');

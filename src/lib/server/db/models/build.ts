@@ -31,6 +31,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 	declare bestSpeedKmh: CreationOptional<number | null>;
 	declare stockSpeedKmh: CreationOptional<number | null>;
 	declare partsTotalMinor: CreationOptional<number>;
+	declare partsText: CreationOptional<string>;
 	declare setupCount: CreationOptional<number>;
 	declare runCount: CreationOptional<number>;
 	declare createdAt: CreationOptional<Date>;
@@ -79,6 +80,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 				bestSpeedKmh: DataTypes.DOUBLE,
 				stockSpeedKmh: DataTypes.DOUBLE,
 				partsTotalMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+				partsText: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
 				setupCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				runCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				createdAt: DataTypes.DATE,
