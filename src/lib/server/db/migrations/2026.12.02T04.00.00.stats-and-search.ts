@@ -9,17 +9,17 @@ import type { Migration } from '../migrator';
 // rules in src/lib/sheet/change-kinds.ts, the speed change: change effects is then one index scan.
 const SPEED_MAP = [
 	'listed',
-	'engine_cycle',
 	'best_run_method',
+	'close_pipe',
 	'best_run_two_way',
 	'best_run_venue',
+	'engine_cycle',
 	'engine_family',
 	'displacement_cc',
 	'final_drive_ratio',
 	'overall_ratio',
 	'sea_level_jet',
 	'roller_total_g',
-	'close_pipe',
 	'best_run_elevation_m',
 	'best_run_kmh',
 	'build_id'
