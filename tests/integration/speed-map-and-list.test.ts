@@ -105,20 +105,20 @@ describe('builds list and search', () => {
 		expect(mph.builds.every((b) => b.bestSpeedKmh! >= 80.4672)).toBe(true);
 	});
 
-	it('finds the same page whether it starts from the matching setups or walks the order', async () => {
+	it('finds the same pages whether it starts from the filter index or walks the order', async () => {
 		const asks = [
 			{ exhaust: 'expansion-chamber', ccMin: 60, sort: 'fastest' },
 			{ exhaust: 'stock', ccMax: 55, speedMin: 40, sort: 'newest' },
 			{ elevMin: 300, elevMax: 1500, sort: 'cheapest' },
 			{ ccMin: 45, ccMax: 75, cycle: 'two-stroke', sort: 'fastest' }
 		];
-		const saved = LIST_TUNING.sparse;
+
 		try {
 			for (const a of asks) {
-				LIST_TUNING.sparse = 1e9; // always start from the setups
+				LIST_TUNING.filterIndex = true;
 				const fromSetups = await list({ ...a, limit: 7 });
 				const next1 = await list({ ...a, limit: 7, cursor: fromSetups.next });
-				LIST_TUNING.sparse = 0; // always walk the order's index
+				LIST_TUNING.filterIndex = false; // always walk the order's index
 				const walked = await list({ ...a, limit: 7 });
 				const next2 = await list({ ...a, limit: 7, cursor: walked.next });
 				expect(walked.builds.map((b) => b.id)).toEqual(fromSetups.builds.map((b) => b.id));
@@ -126,7 +126,7 @@ describe('builds list and search', () => {
 				expect(walked.builds.length).toBeGreaterThan(0);
 			}
 		} finally {
-			LIST_TUNING.sparse = saved;
+			LIST_TUNING.filterIndex = true;
 		}
 	});
 

@@ -168,11 +168,11 @@ export async function seed(N: number, rnd: () => number) {
 			}
 			const story = Array.from({ length: 12 }, () => pick(STORY)).join(' ');
 			b.push(
-				`(${id}, '00000000-0000-4000-8000-00000000beef', ${q(`Bench build ${id}: ${pick(MAKERS)} ${Math.round(cc)} cc`)}, ${q(story)}, ${q(names.join(' · '))}, ${q(family)}, ${q(cycle)}, 'published', 'visible', 1, ${setups}, ${top.toFixed(1)}, ${cost}, ${setups}, NOW(), NOW())`
+				`(${id}, '00000000-0000-4000-8000-00000000beef', ${q(`Bench build ${id}: ${pick(MAKERS)} ${Math.round(cc)} cc`)}, ${q(story)}, ${q(names.join(' · '))}, ${q(pipe)}, ${cc.toFixed(2)}, ${elev}, ${q(family)}, ${q(cycle)}, 'published', 'visible', 1, ${setups}, ${top.toFixed(1)}, ${cost}, ${setups}, NOW(), NOW())`
 			);
 		}
 		await s.query(
-			`INSERT INTO builds (id, owner_id, title, story, parts_text, engine_family, engine_cycle, publication, moderation, version, setup_count, best_speed_kmh, parts_total_minor, run_count, created_at, updated_at) VALUES ${b.join(',')}`
+			`INSERT INTO builds (id, owner_id, title, story, parts_text, rep_pipe, rep_cc, rep_elevation_m, engine_family, engine_cycle, publication, moderation, version, setup_count, best_speed_kmh, parts_total_minor, run_count, created_at, updated_at) VALUES ${b.join(',')}`
 		);
 		await s.query(
 			`INSERT INTO setups (id, build_id, position, change_note, config, engine_cycle, listed, any_listed, exhaust_type, displacement_cc, carb_bore_mm, final_drive_ratio, overall_ratio, tyre_circumference_mm, roller_total_g, sea_level_jet, best_run_elevation_m, best_run_kmh, best_run_method, best_run_two_way, best_run_venue, best_run_density, engine_family, prev_setup_id, change_kind, effect_kmh, created_at, updated_at) VALUES ${st.join(',')}`

@@ -1,12 +1,14 @@
 import { QueryTypes } from 'sequelize';
 import type { BuildListQuery } from '../../schemas/build-list';
+import { EXHAUST_TYPES } from '../../sheet/fields';
 import { toCanonical, type Units } from '../../sheet/units';
 import { booleanQuery } from '../search/words';
 import { correct } from '../search/vocabulary';
 import { db } from './connection';
 
 // The public builds list: filters on the build and on its representative setup (the one close builds
-// ranks, `setups.listed`), keyset pages, and search. A page is found in two steps whatever its size:
+// ranks, `setups.listed`, whose pipe, size and elevation are copied onto the build), keyset pages,
+// and search. A page is found in two steps whatever its size:
 // the ids in order (the filtering and sorting), then the details of just those rows. How the ids are
 // found depends on the filters (see pageIds). A search that finds nothing makes one more try with the
 // nearest spelling (see ../search/vocabulary.ts).
@@ -45,17 +47,15 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 	};
 	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
 	if (q.family) add('b.engine_family = :family', 'family', q.family);
-	if (q.exhaust) add('s.close_pipe = :exhaust', 'exhaust', q.exhaust);
-	if (q.ccMin !== undefined) add('s.displacement_cc >= :ccMin', 'ccMin', q.ccMin);
-	if (q.ccMax !== undefined) add('s.displacement_cc <= :ccMax', 'ccMax', q.ccMax);
+	if (q.exhaust) add('b.rep_pipe = :exhaust', 'exhaust', q.exhaust);
+	if (q.ccMin !== undefined) add('b.rep_cc >= :ccMin', 'ccMin', q.ccMin);
+	if (q.ccMax !== undefined) add('b.rep_cc <= :ccMax', 'ccMax', q.ccMax);
 	const speed = (v: number) => toCanonical(v, 'speed', units);
 	const elev = (v: number) => toCanonical(v, 'elevation', units);
 	if (q.speedMin !== undefined) add('b.best_speed_kmh >= :speedMin', 'speedMin', speed(q.speedMin));
 	if (q.speedMax !== undefined) add('b.best_speed_kmh <= :speedMax', 'speedMax', speed(q.speedMax));
-	if (q.elevMin !== undefined)
-		add('s.best_run_elevation_m >= :elevMin', 'elevMin', elev(q.elevMin));
-	if (q.elevMax !== undefined)
-		add('s.best_run_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
+	if (q.elevMin !== undefined) add('b.rep_elevation_m >= :elevMin', 'elevMin', elev(q.elevMin));
+	if (q.elevMax !== undefined) add('b.rep_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
 	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
 	if (q.runs === '1') w.push('b.run_count > 0');
 	if (text)
@@ -63,10 +63,14 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 	return { w, r };
 }
 
-/** Fewer representative setups than `sparse` pass the setup filters: start from them, not the order. */
-export const LIST_TUNING = { sparse: 10_000 };
-const hasSetupFilter = (q: BuildListQuery) =>
-	Boolean(q.exhaust) || [q.ccMin, q.ccMax, q.elevMin, q.elevMax].some((v) => v !== undefined);
+const PIPES = ['', ...EXHAUST_TYPES.map((o) => o.value)];
+/** Tests turn `filterIndex` off to check that walking the order finds the same pages. */
+export const LIST_TUNING = { filterIndex: true };
+const ORDER_INDEX = {
+	newest: 'PRIMARY',
+	fastest: 'builds_best_speed',
+	cheapest: 'builds_parts_total'
+};
 
 function cursorWhere(q: BuildListQuery) {
 	if (!q.cursor) return null;
@@ -85,50 +89,34 @@ function cursorWhere(q: BuildListQuery) {
 }
 
 /**
- * The page's ids in order. Three ways, cheapest first for what was asked:
+ * The page's ids in order, one of three ways:
  * - words to search: the FULLTEXT index finds the matches, which are then filtered and sorted;
- * - setup filters that few builds pass (a counting probe on setups_list stops at LIST_TUNING.sparse): start
- *   from those setups and sort what survives;
- * - otherwise walk the order's index (id, best speed or parts total) and stop after a page.
- *   Walking is what keeps a plain list fast; starting from rare matches is what keeps a narrow
- *   filter fast when the walk would pass most builds by (fast kits first, say, when asking for 50 cc).
+ * - a pipe or displacement filter: range over builds_list (pipe as a list of points, so the
+ *   displacement range applies inside each), which carries every filtered and sorted column, then
+ *   sort the matches — index entries only, however many match;
+ * - otherwise walk the order's own index and stop after a page.
+ * (Walking the order with a narrow filter can pass most builds by — the fastest are rarely 50 cc —
+ * which is why a filter on the setup's columns starts from those columns instead.)
  */
 async function pageIds(q: BuildListQuery, units: Units, text: string | null) {
 	const { w, r } = where(q, units, text);
 	const c = cursorWhere(q);
 	if (c) (w.push(c.sql), Object.assign(r, c.r));
 	const { col, dir } = KEY[q.sort];
-	const setups = hasSetupFilter(q);
-	let from = setups ? 'builds b JOIN setups s ON s.build_id = b.id AND s.listed = 1' : 'builds b';
-	if (setups && !text) {
-		const probe = where(
-			{
-				...q,
-				cycle: undefined,
-				family: undefined,
-				speedMin: undefined,
-				speedMax: undefined,
-				photos: undefined,
-				runs: undefined
-			},
-			units,
-			null
-		);
-		const sw = probe.w.filter((x) => x.startsWith('s.'));
-		const [{ n }] = await db().query<{ n: number }>(
-			`SELECT COUNT(*) AS n FROM (SELECT 1 FROM setups s FORCE INDEX (setups_list) WHERE s.listed = 1 AND ${sw.join(' AND ')} LIMIT ${LIST_TUNING.sparse}) x`,
-			{ replacements: probe.r, type: QueryTypes.SELECT }
-		);
-		if (Number(n) < LIST_TUNING.sparse)
-			from =
-				'setups s FORCE INDEX (setups_list) STRAIGHT_JOIN builds b ON b.id = s.build_id AND s.listed = 1';
-	}
-	const rows = await db().query<{ id: number; sort_key: number | null }>(
-		`SELECT b.id, ${col} AS sort_key FROM ${from} WHERE ${w.join(' AND ')}
+	let index = '';
+	if (
+		!text &&
+		LIST_TUNING.filterIndex &&
+		(q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined)
+	) {
+		index = 'FORCE INDEX (builds_list)';
+		if (!q.exhaust) (w.push('b.rep_pipe IN (:pipes)'), (r.pipes = PIPES));
+	} else if (!text) index = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
+	return db().query<{ id: number; sort_key: number | null }>(
+		`SELECT b.id, ${col} AS sort_key FROM builds b ${index} WHERE ${w.join(' AND ')}
 		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
 		{ replacements: { ...r, limit: q.limit + 1 }, type: QueryTypes.SELECT }
 	);
-	return rows;
 }
 
 async function page(q: BuildListQuery, units: Units, text: string | null) {
@@ -140,10 +128,9 @@ async function page(q: BuildListQuery, units: Units, text: string | null) {
 		? await db().query<Record<string, unknown>>(
 				`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
 				b.currency, b.setup_count, b.run_count, u.name AS owner,
-				s.displacement_cc, s.exhaust_type, s.best_run_elevation_m,
+				b.rep_cc, b.rep_pipe, b.rep_elevation_m,
 				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos
 			FROM builds b
-			LEFT JOIN setups s ON s.build_id = b.id AND s.listed = 1
 			LEFT JOIN users u ON u.id = b.owner_id
 			WHERE b.id IN (:ids)`,
 				{ replacements: { ids: mine.map((x) => x.id) }, type: QueryTypes.SELECT }
@@ -174,9 +161,9 @@ function toRow(x: Record<string, unknown>): ListRow {
 		currency: String(x.currency),
 		setupCount: Number(x.setup_count),
 		runCount: Number(x.run_count),
-		displacementCc: n(x.displacement_cc),
-		exhaust: (x.exhaust_type as string | null) ?? null,
-		elevationM: n(x.best_run_elevation_m),
+		displacementCc: n(x.rep_cc),
+		exhaust: (x.rep_pipe as string) || null,
+		elevationM: n(x.rep_elevation_m),
 		photos: Boolean(Number(x.photos))
 	};
 }

@@ -102,9 +102,18 @@ export async function refreshListing(buildId: number): Promise<void> {
 	const open = b.publication === 'published' && b.moderation === 'visible';
 	const rep = await Setup.findOne({
 		where: { buildId, bestRunKmh: { [Op.ne]: null } },
-		attributes: ['id'],
+		attributes: ['id', 'exhaustType', 'displacementCc', 'bestRunElevationM'],
 		order: [['position', 'DESC']]
 	});
+	// The builds list filters on these (see db/build-list.ts).
+	await Build.update(
+		{
+			repPipe: rep?.exhaustType ?? '',
+			repCc: rep?.displacementCc ?? null,
+			repElevationM: rep?.bestRunElevationM ?? null
+		},
+		{ where: { id: buildId }, silent: true }
+	);
 	// One statement for all of the build's setups.
 	await Setup.sequelize!.query(
 		'UPDATE setups SET engine_cycle = :cycle, engine_family = :family, listed = (:open AND id = :rep), any_listed = (:open AND best_run_kmh IS NOT NULL) WHERE build_id = :buildId',

@@ -22,7 +22,6 @@ export type SpeedPoint = {
 	setupId: number;
 	buildId: number;
 	title: string;
-	position: number;
 	x: number | string;
 	kmh: number;
 	pipe: string;
@@ -118,7 +117,7 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 	const { col, sql, repl } = filters(q);
 	const numeric = q.x !== 'exhaust';
 	const rows = await db().query<Record<string, unknown>>(
-		`SELECT s.id, s.build_id, s.position, ${col} AS x, s.best_run_kmh AS kmh, s.close_pipe AS pipe
+		`SELECT s.id, s.build_id, ${col} AS x, s.best_run_kmh AS kmh, s.close_pipe AS pipe
 		${sql} LIMIT ${maxPoints + 1}`,
 		{ replacements: repl, type: QueryTypes.SELECT }
 	);
@@ -138,7 +137,6 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 			.map((r) => ({
 				setupId: Number(r.id),
 				buildId: Number(r.build_id),
-				position: Number(r.position),
 				title: title.get(Number(r.build_id)) ?? '',
 				x: numeric ? Number(r.x) : String(r.x),
 				kmh: Number(r.kmh),

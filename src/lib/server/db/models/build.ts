@@ -32,6 +32,9 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 	declare stockSpeedKmh: CreationOptional<number | null>;
 	declare partsTotalMinor: CreationOptional<number>;
 	declare partsText: CreationOptional<string>;
+	declare repPipe: CreationOptional<string>;
+	declare repCc: CreationOptional<number | null>;
+	declare repElevationM: CreationOptional<number | null>;
 	declare setupCount: CreationOptional<number>;
 	declare runCount: CreationOptional<number>;
 	declare createdAt: CreationOptional<Date>;
@@ -81,6 +84,9 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 				stockSpeedKmh: DataTypes.DOUBLE,
 				partsTotalMinor: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				partsText: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+				repPipe: { type: DataTypes.STRING(20), allowNull: false, defaultValue: '' },
+				repCc: DataTypes.DOUBLE,
+				repElevationM: DataTypes.DOUBLE,
 				setupCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				runCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				createdAt: DataTypes.DATE,
