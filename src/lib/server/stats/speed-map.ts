@@ -4,10 +4,10 @@ import { METHODS, SPEED_MAP_X, type SpeedMapQuery } from '../../stats/schema';
 import { db } from '../db/connection';
 
 // The speed map's data: best measured speed against one setup column, one mark per published build
-// (its latest measured setup, the one close builds ranks). Two queries whatever the number of builds:
-// the matching setups up to MAX_POINTS + 1 (an index scan that stops early when there are more), then
-// either the titles of those few, or counts and sums in bins computed by MariaDB — so the browser
-// never receives a hundred thousand points. The trend line is least squares from the same sums.
+// (its latest measured setup, the one close builds ranks). At most two queries whatever the number of
+// builds: counts and sums in bins, computed by MariaDB over one covering index (the trend line is
+// least squares from those sums); then, when few enough to draw one by one, the points themselves.
+// The browser never receives a hundred thousand points.
 
 /** Above this many setups the map shows bins instead of points. */
 export const MAX_POINTS = 2000;
@@ -69,13 +69,19 @@ function filters(q: SpeedMapQuery) {
 		venues: q.closed ? ['closed-course'] : ALL.venue,
 		cycles: q.cycle ? [q.cycle] : ALL.cycle
 	};
+	// Unfiltered, a plain scan of the index is cheaper than 192 little ranges.
+	const narrowed = q.method.length || q.pipe.length || q.twoWay || q.closed || q.cycle;
 	const where = [
 		's.listed = 1',
-		's.best_run_method IN (:methods)',
-		's.close_pipe IN (:pipes)',
-		's.best_run_two_way IN (:twoWay)',
-		's.best_run_venue IN (:venues)',
-		's.engine_cycle IN (:cycles)',
+		...(narrowed
+			? [
+					's.best_run_method IN (:methods)',
+					's.close_pipe IN (:pipes)',
+					's.best_run_two_way IN (:twoWay)',
+					's.best_run_venue IN (:venues)',
+					's.engine_cycle IN (:cycles)'
+				]
+			: []),
 		`${col} IS NOT NULL`
 	];
 	if (q.x === 'exhaust') where.push("s.close_pipe <> ''");
@@ -116,57 +122,6 @@ function addSums(a: Sums, b: Sums) {
 export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promise<SpeedMap> {
 	const { col, sql, repl } = filters(q);
 	const numeric = q.x !== 'exhaust';
-	const rows = await db().query<Record<string, unknown>>(
-		`SELECT s.id, s.build_id, ${col} AS x, s.best_run_kmh AS kmh, s.close_pipe AS pipe
-		${sql} LIMIT ${maxPoints + 1}`,
-		{ replacements: repl, type: QueryTypes.SELECT }
-	);
-	if (rows.length <= maxPoints) {
-		const ids = [...new Set(rows.map((r) => Number(r.build_id)))];
-		const titles = ids.length
-			? await db().query<{ id: number; title: string }>(
-					'SELECT id, title FROM builds WHERE id IN (:ids)',
-					{
-						replacements: { ids },
-						type: QueryTypes.SELECT
-					}
-				)
-			: [];
-		const title = new Map(titles.map((t) => [Number(t.id), t.title]));
-		const points = rows
-			.map((r) => ({
-				setupId: Number(r.id),
-				buildId: Number(r.build_id),
-				title: title.get(Number(r.build_id)) ?? '',
-				x: numeric ? Number(r.x) : String(r.x),
-				kmh: Number(r.kmh),
-				pipe: String(r.pipe)
-			}))
-			.sort((a, b) => a.setupId - b.setupId);
-		const sums = noSums();
-		if (numeric)
-			for (const p of points) {
-				const x = p.x as number;
-				addSums(sums, {
-					n: 1,
-					sx: x,
-					sy: p.kmh,
-					sxx: x * x,
-					sxy: x * p.kmh,
-					syy: p.kmh * p.kmh,
-					lo: x,
-					hi: x
-				});
-			}
-		return {
-			x: q.x,
-			total: points.length,
-			mode: 'points',
-			points,
-			bins: [],
-			trend: numeric ? leastSquares(sums) : null
-		};
-	}
 	const w = SPEED_MAP_X[q.x].bin;
 	const x = numeric ? col : '0';
 	// One integer per bin (x bin, speed bin, pipe) groups far faster than three columns with a string.
@@ -182,11 +137,31 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 	const sums = noSums();
 	for (const g of groups)
 		addSums(sums, Object.fromEntries(Object.keys(noSums()).map((k) => [k, Number(g[k])])) as Sums);
+	const trend = numeric ? leastSquares(sums) : null;
+	if (sums.n <= maxPoints) {
+		// Few enough to draw one by one: the points themselves, with their builds' titles.
+		const rows = sums.n
+			? await db().query<Record<string, unknown>>(
+					`SELECT s.id, s.build_id, ${col} AS x, s.best_run_kmh AS kmh, s.close_pipe AS pipe, b.title
+					${sql.replace('WHERE', 'JOIN builds b ON b.id = s.build_id WHERE')} ORDER BY s.id`,
+					{ replacements: repl, type: QueryTypes.SELECT }
+				)
+			: [];
+		const points = rows.map((r) => ({
+			setupId: Number(r.id),
+			buildId: Number(r.build_id),
+			title: String(r.title),
+			x: numeric ? Number(r.x) : String(r.x),
+			kmh: Number(r.kmh),
+			pipe: String(r.pipe)
+		}));
+		return { x: q.x, total: points.length, mode: 'points', points, bins: [], trend };
+	}
 	return {
 		x: q.x,
 		total: sums.n,
 		mode: 'bins',
-		trend: numeric ? leastSquares(sums) : null,
+		trend,
 		points: [],
 		bins: groups
 			.map((r) => {
