@@ -101,7 +101,10 @@ function cursorWhere(q: BuildListQuery) {
 async function pageIds(q: BuildListQuery, units: Units, text: string | null) {
 	const { w, r } = where(q, units, text);
 	const c = cursorWhere(q);
-	if (c) (w.push(c.sql), Object.assign(r, c.r));
+	if (c) {
+		w.push(c.sql);
+		Object.assign(r, c.r);
+	}
 	const { col, dir } = KEY[q.sort];
 	let index = '';
 	if (
@@ -110,7 +113,10 @@ async function pageIds(q: BuildListQuery, units: Units, text: string | null) {
 		(q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined)
 	) {
 		index = 'FORCE INDEX (builds_list)';
-		if (!q.exhaust) (w.push('b.rep_pipe IN (:pipes)'), (r.pipes = PIPES));
+		if (!q.exhaust) {
+			w.push('b.rep_pipe IN (:pipes)');
+			r.pipes = PIPES;
+		}
 	} else if (!text) index = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
 	return db().query<{ id: number; sort_key: number | null }>(
 		`SELECT b.id, ${col} AS sort_key FROM builds b ${index} WHERE ${w.join(' AND ')}

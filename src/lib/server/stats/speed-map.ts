@@ -85,7 +85,10 @@ function filters(q: SpeedMapQuery) {
 		`${col} IS NOT NULL`
 	];
 	if (q.x === 'exhaust') where.push("s.close_pipe <> ''");
-	if (q.family) (where.push('s.engine_family = :family'), (repl.family = q.family));
+	if (q.family) {
+		where.push('s.engine_family = :family');
+		repl.family = q.family;
+	}
 	return {
 		col,
 		sql: `FROM setups s FORCE INDEX (setups_speed_map) WHERE ${where.join(' AND ')}`,
