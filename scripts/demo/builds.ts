@@ -56,7 +56,20 @@ const KITS = [
 ];
 const PIPES = ['Halvard expansion chamber', 'Gresley chamber pipe', 'Tamm sport expansion'];
 
-type Config = Record<string, string | number | boolean | null>;
+export type Config = Record<string, string | number | boolean | null>;
+
+/** What the gearing allows at the setup's peak rpm: no demo run is ever faster. */
+export function gearingLimitOf(c: Config) {
+	return gearingLimitedSpeedKmh(
+		c.peakRpm as number,
+		c.topCvtRatio as number,
+		[
+			[c.primaryDriver as number, c.primaryDriven as number],
+			[c.secondaryDriver as number, c.secondaryDriven as number]
+		],
+		c.rearTyre as string
+	);
+}
 
 function stockSetup(wheel: string): Config {
 	return {
@@ -192,15 +205,7 @@ export async function seedBuilds(ownerIds: string[]): Promise<number> {
 					link: null,
 					setupId
 				});
-			const limit = gearingLimitedSpeedKmh(
-				config.peakRpm as number,
-				config.topCvtRatio as number,
-				[
-					[config.primaryDriver as number, config.primaryDriven as number],
-					[config.secondaryDriver as number, config.secondaryDriven as number]
-				],
-				config.rearTyre as string
-			);
+			const limit = gearingLimitOf(config);
 			const runsHere = 1 + Math.floor(local() * 2);
 			for (let r = 0; r < runsHere; r++) {
 				const season = SEASONS[Math.floor(local() * SEASONS.length)];

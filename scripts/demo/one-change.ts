@@ -3,12 +3,11 @@
 // measured the same day with the same method — the material change effects is made of. A few steps
 // break the rules on purpose (a radar run after a GPS one, a summer run after a winter one) so the
 // page has excluded pairs to explain. Fixed seed, like the other demo sheets.
-import { gearingLimitedSpeedKmh } from '../../src/lib/tuning';
 import * as builds from '../../src/lib/server/db/builds';
 import { models } from '../../src/lib/server/db/models';
 import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { gearingLimitOf, type Config } from './builds';
 
-type Config = Record<string, string | number | boolean | null>;
 type Step = {
 	note: string;
 	change: (c: Config) => Config;
@@ -141,15 +140,7 @@ export async function seedOneChange(ownerIds: string[]): Promise<number> {
 					link: null,
 					setupId
 				});
-			const limit = gearingLimitedSpeedKmh(
-				config.peakRpm as number,
-				config.topCvtRatio as number,
-				[
-					[config.primaryDriver as number, config.primaryDriven as number],
-					[config.secondaryDriver as number, config.secondaryDriven as number]
-				],
-				config.rearTyre as string
-			);
+			const limit = gearingLimitOf(config);
 			speed = step ? speed + between(...step.gain) : limit * between(0.82, 0.88);
 			// Never above what the gearing allows at peak rpm.
 			speed = Math.min(speed, limit * 0.97);

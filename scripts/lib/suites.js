@@ -63,9 +63,13 @@ async function perfSmoke(env) {
 	const ok =
 		code === 0 &&
 		r?.builds === 1000 &&
-		[r.closeBuilds?.p50Ms, r.closeBuilds?.p95Ms, r.naive?.p50Ms, r.ratioNaiveOverOurs].every(
-			Number.isFinite
-		);
+		[
+			r.closeBuilds?.p50Ms,
+			r.closeBuilds?.p95Ms,
+			r.naive?.p50Ms,
+			r.ratioNaiveOverOurs,
+			...['list', 'speedMap', 'changeEffects', 'search'].flatMap((k) => [r[k]?.p50Ms, r[k]?.p95Ms])
+		].every(Number.isFinite);
 	if (!ok) console.error('✗ the benchmark smoke run failed or wrote malformed figures');
 	return { name: 'perf smoke', code: ok ? 0 : 1, passed: ok ? 1 : 0, failed: ok ? 0 : 1 };
 }

@@ -7,43 +7,13 @@ import { models } from '../../src/lib/server/db/models';
 import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
 import { pairsFor, stepsOf, summarise } from '../../src/lib/server/stats/change-effects';
 import { makeUser } from '../support/factories';
+import { FIXTURE_SETUP, fixtureRun, type FixtureAir } from '../support/sheet-fixtures';
 
 // One fixed sheet whose steps each test one pairing rule; the expected verdicts are worked out by
 // hand from the rules in src/lib/sheet/change-kinds.ts.
-const BASE = {
-	bore: 47,
-	stroke: 39.2,
-	carbBore: 17,
-	mainJet: 92,
-	jetNumbering: 'diameter',
-	needleClip: 2,
-	exhaustType: 'expansion-chamber',
-	rollerWeights: '6x5',
-	primaryDriver: 15,
-	primaryDriven: 43,
-	secondaryDriver: 13,
-	secondaryDriven: 47,
-	rearTyre: '120/70-12',
-	peakRpm: 10000,
-	lubrication: 'premix',
-	kitMaterial: 'cast-iron',
-	isStock: false
-};
-type Air = { method?: string; temp?: number; elevation?: number };
-const run = (speed: number, a: Air = {}) => ({
-	runOn: '2026-05-01',
-	speed,
-	method: a.method ?? 'gps-logger',
-	twoWay: true,
-	venue: 'closed-course',
-	elevation: a.elevation ?? 200,
-	temp: a.temp ?? 15,
-	humidity: 50,
-	pressure: null,
-	pressureKind: 'sea-level',
-	chtSensor: 'plug-washer',
-	notes: ''
-});
+const BASE = { ...FIXTURE_SETUP };
+const run = fixtureRun;
+type Air = FixtureAir;
 // [what changed, the change, the run (speed, air) or null for no run]
 const STEPS: [string, Record<string, unknown>, [number, Air] | null][] = [
 	['baseline', {}, [100, {}]],

@@ -6,42 +6,11 @@ import { BAND } from '../../src/lib/close/weights';
 import { closeBuilds, rankClose, targetFrom } from '../../src/lib/server/close/service';
 import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
 import { makeUser } from '../support/factories';
+import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 
 // A fixed set of four-stroke builds (the demo data is all two-stroke, so nothing else competes).
-const BASE = {
-	changeNote: 'fixture',
-	isStock: false,
-	bore: 47,
-	stroke: 39.2,
-	squish: 0.8,
-	carbBore: 17,
-	mainJet: 92,
-	jetNumbering: 'diameter',
-	exhaustType: 'expansion-chamber',
-	rollerWeights: '6x5',
-	primaryDriver: 15,
-	primaryDriven: 43,
-	secondaryDriver: 13,
-	secondaryDriven: 47,
-	rearTyre: '120/70-12',
-	peakRpm: 10000,
-	lubrication: 'premix',
-	kitMaterial: 'cast-iron'
-};
-const run = (speed: number, elevation: number) => ({
-	runOn: '2026-05-01',
-	speed,
-	method: 'gps-logger',
-	twoWay: true,
-	venue: 'closed-course',
-	elevation,
-	temp: 15,
-	humidity: 50,
-	pressure: null,
-	pressureKind: 'sea-level',
-	chtSensor: 'plug-washer',
-	notes: ''
-});
+const BASE = FIXTURE_SETUP;
+const run = (speed: number, elevation: number) => fixtureRun(speed, { elevation });
 const ids: Record<string, number> = {};
 // Only this file's fixture counts, should the database still hold one from an earlier run.
 const mine = <T extends { buildId: number }>(rs: T[]) =>
