@@ -4,6 +4,7 @@
 // change kind, most with a speed change that counts; two parts a build on average, named from a
 // vocabulary of a few thousand invented part names; a short story to search.
 import { CHANGE_KINDS } from '../../src/lib/sheet/change-kinds';
+import { QueryTypes } from 'sequelize';
 import { db } from '../../src/lib/server/db/connection';
 
 export function mulberry32(seed: number) {
@@ -183,5 +184,22 @@ export async function seed(N: number, rnd: () => number) {
 			);
 	}
 	await s.query('ANALYZE TABLE setups, builds, parts');
+	await settle();
 	return { setups: setupId, parts: partId };
+}
+
+/**
+ * Waits (up to 30 s) until InnoDB has written out what the seeding left dirty in the buffer pool, so
+ * the timings measure a database at rest rather than one still flushing half a gigabyte behind them.
+ */
+async function settle() {
+	const dirty = async () => {
+		const [r] = await db().query<{ Value: string }>(
+			"SHOW GLOBAL STATUS LIKE 'Innodb_buffer_pool_pages_dirty'",
+			{ type: QueryTypes.SELECT }
+		);
+		return Number(r?.Value ?? 0);
+	};
+	const until = Date.now() + 30_000;
+	while (Date.now() < until && (await dirty()) > 100) await new Promise((r) => setTimeout(r, 250));
 }
