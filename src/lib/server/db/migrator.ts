@@ -7,7 +7,7 @@ import * as m003 from './migrations/2026.12.01T23.00.00.create-builds';
 import * as m004 from './migrations/2026.12.01T23.10.00.create-photos';
 import * as m005 from './migrations/2026.12.01T23.50.00.close-builds-columns';
 import * as m006 from './migrations/2026.12.02T00.05.00.close-builds-exhaust-index';
-import * as m007 from './migrations/2026.12.02T03.00.00.close-builds-grid';
+import * as m007 from './migrations/2026.12.02T03.00.00.close-builds-by-carb';
 import * as m008 from './migrations/2026.12.02T04.00.00.stats-and-search';
 
 export type Migration = MigrationFn<QueryInterface>;
@@ -20,7 +20,7 @@ const MIGRATIONS = [
 	{ name: '2026.12.01T23.10.00.create-photos', ...m004 },
 	{ name: '2026.12.01T23.50.00.close-builds-columns', ...m005 },
 	{ name: '2026.12.02T00.05.00.close-builds-exhaust-index', ...m006 },
-	{ name: '2026.12.02T03.00.00.close-builds-grid', ...m007 },
+	{ name: '2026.12.02T03.00.00.close-builds-by-carb', ...m007 },
 	{ name: '2026.12.02T04.00.00.stats-and-search', ...m008 }
 ];
 

@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import { CHANGE_KINDS, judgeStep, type ChangeKind } from '../../sheet/change-kinds';
+import { CHANGE_KINDS, changeKind, judgeStep, type ChangeKind } from '../../sheet/change-kinds';
 import { db } from '../db/connection';
 import { models } from '../db/models';
 import { stepRun } from '../sheets/recompute';
@@ -113,7 +113,7 @@ export async function pairsFor(kind: ChangeKind, limit = 50, offset = 0): Promis
 	}));
 }
 
-/** A build's own steps, judged by the same rules (for its page). */
+/** A build's own steps, judged by the same functions that fill the stored columns (for its page). */
 export async function stepsOf(buildId: number) {
 	const list = await models().Setup.findAll({
 		where: { buildId },
@@ -122,7 +122,7 @@ export async function stepsOf(buildId: number) {
 			'id',
 			'position',
 			'changeNote',
-			'changeKind',
+			'config',
 			'bestRunKmh',
 			'bestRunMethod',
 			'bestRunDensity'
@@ -130,7 +130,8 @@ export async function stepsOf(buildId: number) {
 	});
 	return list.slice(1).map((s, i) => {
 		const prev = list[i];
-		const verdict = judgeStep((s.changeKind ?? 'mixed') as never, stepRun(prev), stepRun(s));
+		const kind = changeKind(prev.config, s.config);
+		const verdict = judgeStep(kind, stepRun(prev), stepRun(s));
 		return { from: prev.position, to: s.position, changeNote: s.changeNote, ...verdict };
 	});
 }
