@@ -1,6 +1,7 @@
 // Applies pending migrations to the database named in the environment.
 import { QueryTypes } from 'sequelize';
 import { closeDb, db } from '../src/lib/server/db/connection';
+import { applyAppGrants } from '../src/lib/server/db/grants';
 import { migrator } from '../src/lib/server/db/migrator';
 import { refreshSteps } from '../src/lib/server/sheets/recompute';
 
@@ -19,4 +20,6 @@ if (done.some((m) => m.name === '2026.12.02T04.00.00.stats-and-search')) {
 	for (const b of new Set(ids.map((s) => s.build_id))) await refreshSteps(b);
 	console.log(`  change steps filled for ${ids.length} setups`);
 }
+// Every run, so a table added by any migration gets the app account's table-level grants.
+await applyAppGrants(db().getQueryInterface());
 await closeDb();

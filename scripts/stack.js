@@ -17,7 +17,7 @@ import {
 	stopStale,
 	waitForPort
 } from './lib/proc.js';
-import { ROOT, stackEnv } from './lib/profiles.js';
+import { ownerEnv, ROOT, stackEnv } from './lib/profiles.js';
 
 const mode = process.argv[2] ?? 'start';
 if (!['start', 'test', 'dev', 'services', 'perf'].includes(mode))
@@ -46,6 +46,7 @@ fs.mkdirSync(e.RUN_DIR, { recursive: true });
 takeLock();
 await cleanUpAfterCrash();
 const env = { ...process.env, ...e, AUTH_SECRET: process.env.AUTH_SECRET ?? secret() };
+const asOwner = ownerEnv(env);
 
 console.log(`\n▸ services (${profile})`);
 const dbServer = await startMariadb(e);
@@ -57,7 +58,7 @@ if (mode === 'perf') {
 	const code = await run(
 		process.execPath,
 		['--import', 'tsx', 'tests/perf/bench.ts', ...process.argv.slice(3)],
-		{ cwd: ROOT, env }
+		{ cwd: ROOT, env: asOwner }
 	);
 	await shutdown(code);
 }
@@ -112,7 +113,10 @@ async function build() {
 
 async function tsx(script, label) {
 	console.log(`· ${label}…`);
-	const code = await run(process.execPath, ['--import', 'tsx', script], { cwd: ROOT, env });
+	const code = await run(process.execPath, ['--import', 'tsx', script], {
+		cwd: ROOT,
+		env: asOwner
+	});
 	if (code !== 0) {
 		console.error(`✗ ${label} failed (see above)`);
 		await shutdown(1);

@@ -5,8 +5,6 @@ declare global {
 		interface Locals {
 			/** The signed-in member, loaded fresh from the database on every request. */
 			user: CurrentUser | null;
-			/** Set when a session exists but its account is suspended. */
-			suspended: boolean;
 		}
 		interface Error {
 			message: string;

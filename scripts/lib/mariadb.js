@@ -85,13 +85,17 @@ async function ping(socket) {
 async function createDatabase(e, socket) {
 	const q = (s) => s.replace(/[`'\\]/g, '');
 	const [db, user, pw] = [q(e.DB_NAME), q(e.DB_USER), q(e.DB_PASSWORD)];
+	const [owner, ownerPw] = [q(e.DB_OWNER_USER), q(e.DB_OWNER_PASSWORD)];
 	const sql = [
 		// The test stack starts every run from an empty database.
 		...(e.FRESH_DB ? [`DROP DATABASE IF EXISTS \`${db}\``] : []),
 		`CREATE DATABASE IF NOT EXISTS \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
+		`CREATE USER IF NOT EXISTS '${owner}'@'127.0.0.1' IDENTIFIED BY '${ownerPw}'`,
+		`ALTER USER '${owner}'@'127.0.0.1' IDENTIFIED BY '${ownerPw}'`,
+		`GRANT ALL ON \`${db}\`.* TO '${owner}'@'127.0.0.1' WITH GRANT OPTION`,
+		// The app's account: the migrations grant what it may do, table by table.
 		`CREATE USER IF NOT EXISTS '${user}'@'127.0.0.1' IDENTIFIED BY '${pw}'`,
-		`ALTER USER '${user}'@'127.0.0.1' IDENTIFIED BY '${pw}'`,
-		`GRANT ALL ON \`${db}\`.* TO '${user}'@'127.0.0.1'`
+		`ALTER USER '${user}'@'127.0.0.1' IDENTIFIED BY '${pw}'`
 	].join('; ');
 	const code = await run(
 		which('mariadb') ?? 'mariadb',

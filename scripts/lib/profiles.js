@@ -60,6 +60,10 @@ export function stackEnv(name, outer = process.env) {
 		DB_NAME: pick('DB_NAME'),
 		DB_USER: outer.DB_USER ?? 'squishline',
 		DB_PASSWORD: outer.DB_PASSWORD ?? 'squishline-local',
+		// Migrations and seeding run as this owner account; the app's own account (above) gets
+		// only the grants the migrations give it (the moderation log: no UPDATE or DELETE).
+		DB_OWNER_USER: outer.DB_OWNER_USER ?? 'squishline_owner',
+		DB_OWNER_PASSWORD: outer.DB_OWNER_PASSWORD ?? 'squishline-owner-local',
 		DB_DATA_DIR: abs(pick('DB_DATA_DIR')),
 		S3_PORT: pick('S3_PORT'),
 		S3_DATA_DIR: abs(pick('S3_DATA_DIR')),
@@ -81,6 +85,17 @@ export function stackEnv(name, outer = process.env) {
 	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
 	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;
 	return e;
+}
+
+/** The same stack as the owner account: for migrations, seeding and the benchmark's loader. */
+export function ownerEnv(e) {
+	return {
+		...e,
+		DB_USER: e.DB_OWNER_USER,
+		DB_PASSWORD: e.DB_OWNER_PASSWORD,
+		DB_APP_USER: e.DB_USER,
+		DB_APP_HOST: '127.0.0.1'
+	};
 }
 
 /** The variables stackEnv sets, so a nested launcher can be given a clean environment. */

@@ -3,6 +3,6 @@ import type { LayoutServerLoad } from './$types';
 
 export const load: LayoutServerLoad = async ({ locals }) => ({
 	user: locals.user,
-	suspended: locals.suspended,
+	suspension: locals.user?.suspension ?? null,
 	outbox: Boolean(env().FAKE_MAIL_DIR)
 });

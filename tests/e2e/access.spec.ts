@@ -85,9 +85,11 @@ test('a role change and a suspension take effect on the next request', async ({ 
 
 	expect((await pa.goto('/review'))?.status()).toBe(200);
 	await expect(pa.getByRole('banner')).toContainText('[moderator]');
-	await pb.goto('/profile');
-	await expect(pb).toHaveURL(/\/signin/);
-	await expect(pb.getByRole('alert').first()).toContainText('suspended');
+	// Suspended: still signed in to read, told why on every page; changes are refused (403).
+	expect((await pb.goto('/profile'))?.status()).toBe(200);
+	await expect(pb.getByRole('alert').filter({ hasText: 'suspended' })).toContainText('test');
+	await pb.getByRole('button', { name: /save/i }).first().click();
+	await expect(pb.getByText(/suspended/).first()).toBeVisible();
 
 	await users.update(a.id, { role: 'member' });
 	expect((await pa.goto('/review'))?.status()).toBe(403);

@@ -48,10 +48,10 @@ test('signs in with a link read from the outbox; the link works only once', asyn
 	await expect(page.getByRole('banner')).toContainText('Sign in');
 });
 
-test('a suspended account cannot sign in and is told why', async ({ page }) => {
+test('a suspended member signs in read-only and is told why and until when', async ({ page }) => {
 	const u = await makeUser({ suspended: true });
 	await signInWithPassword(page, u.email, u.password);
-	await expect(
-		page.getByRole('form', { name: 'With your password' }).getByRole('alert')
-	).toContainText('suspended');
+	const alert = page.getByRole('alert').filter({ hasText: 'suspended' });
+	await expect(alert).toContainText('until the desk lifts it: test');
+	await expect(alert).toContainText('not post, comment, report or message');
 });

@@ -5,6 +5,8 @@ export function fakeEvent(opts: {
 	user?: CurrentUser | null;
 	params?: Record<string, string>;
 	path?: string;
+	/** The client address the rate limits see; tests that post a lot give each event its own. */
+	address?: string;
 	form?: Record<string, string>;
 	request?: { method: string; body?: BodyInit; headers?: Record<string, string> };
 }) {
@@ -20,9 +22,9 @@ export function fakeEvent(opts: {
 		url,
 		request,
 		params: opts.params ?? {},
-		locals: { user: opts.user ?? null, suspended: false },
+		locals: { user: opts.user ?? null },
 		route: { id: null },
-		getClientAddress: () => '127.0.0.1',
+		getClientAddress: () => opts.address ?? '127.0.0.1',
 		cookies: { get: () => undefined, getAll: () => [], set() {}, delete() {}, serialize: () => '' },
 		setHeaders() {},
 		parent: async () => ({}),
@@ -39,5 +41,6 @@ export const asUser = (
 	email: u.email,
 	name: 'Tester',
 	role,
-	units: 'metric'
+	units: 'metric',
+	suspension: null
 });

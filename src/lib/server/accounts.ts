@@ -52,7 +52,7 @@ export async function confirmAddress(token: string) {
 
 export async function requestReset(email: string) {
 	const user = await users.readByEmail(email);
-	if (!user || user.suspendedAt) return;
+	if (!user) return;
 	const token = await tokens.issue(user.id, 'reset');
 	await send(
 		linkLetter({

@@ -10,6 +10,9 @@ const schema = z.object({
 	DB_NAME: z.string().default('squishline'),
 	DB_USER: z.string().default('squishline'),
 	DB_PASSWORD: z.string().default('squishline-local'),
+	/** Set when running migrations as the owner account: the account whose grants they set. */
+	DB_APP_USER: z.string().optional(),
+	DB_APP_HOST: z.string().default('127.0.0.1'),
 	S3_ENDPOINT: z.string().default('http://127.0.0.1:4569'),
 	S3_REGION: z.string().default('us-east-1'),
 	S3_BUCKET: z.string().default('squishline'),

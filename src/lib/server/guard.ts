@@ -1,15 +1,21 @@
 import { error, json, redirect, type RequestEvent } from '@sveltejs/kit';
+import { suspensionMessage } from '../moderation/suspension';
 import { roleAllows, type Role } from '../roles';
 import type { CurrentUser } from './auth/current-user';
 
 const isApi = (event: RequestEvent) => event.url.pathname.startsWith('/api/');
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
  * The one access check for loads, actions and API handlers. Signed out: pages go to sign-in
- * (and come back), API routes answer 401. Signed in without the role: 403.
+ * (and come back), API routes answer 401. Signed in without the role: 403. A suspended member
+ * passes for reading (GET) and gets 403 with the reason for anything that changes data, so no
+ * route can forget the suspension.
  */
 export function requireUser(event: RequestEvent): CurrentUser {
 	const user = event.locals.user;
+	if (user?.suspension && !READS.has(event.request.method))
+		refuse(event, 403, suspensionMessage(user.suspension));
 	if (user) return user;
 	if (isApi(event)) refuse(event, 401, 'Sign in first.');
 	const next = event.url.pathname + event.url.search;

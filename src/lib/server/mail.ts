@@ -14,7 +14,13 @@ export function mailer(): Transporter {
 	return transport;
 }
 
-export type Letter = { to: string; subject: string; text: string; html?: string };
+export type Letter = {
+	to: string;
+	subject: string;
+	text: string;
+	html?: string;
+	headers?: Record<string, string>;
+};
 
 export async function send(letter: Letter): Promise<void> {
 	const result = await mailer().sendMail({ from: env().MAIL_FROM, ...letter });
@@ -31,6 +37,39 @@ const esc = (s: string) =>
 		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!
 	);
 
+/**
+ * The one layout for every mail we send: paragraphs, an optional button-like link, a quiet
+ * footer, and for notification mails a one-click unsubscribe link (also in the List-Unsubscribe
+ * header, RFC 2369, so mail clients can offer it). Always a plain-text part; HTML beside it.
+ */
+export function compose(opts: {
+	to: string;
+	subject: string;
+	paragraphs: string[];
+	action?: { label: string; url: string };
+	footer?: string;
+	unsubscribeUrl?: string;
+}): Letter {
+	const text = [
+		...opts.paragraphs,
+		...(opts.action ? [`${opts.action.label}: ${opts.action.url}`] : []),
+		...(opts.footer ? [opts.footer] : []),
+		...(opts.unsubscribeUrl ? [`Stop these mails: ${opts.unsubscribeUrl}`] : []),
+		'— Squishline'
+	].join('\n\n');
+	const p = (t: string) => `<p>${esc(t).replace(/\n/g, '<br>')}</p>`;
+	const html = `<div style="font-family:sans-serif;color:#2a2926;max-width:32rem">
+${opts.paragraphs.map(p).join('\n')}
+${opts.action ? `<p><a href="${esc(opts.action.url)}" style="color:#a8471f;font-weight:600">${esc(opts.action.label)}</a></p>` : ''}
+${opts.footer ? `<p style="font-size:13px;color:#55524b">${esc(opts.footer)}</p>` : ''}
+${opts.unsubscribeUrl ? `<p style="font-size:12px;color:#55524b"><a href="${esc(opts.unsubscribeUrl)}" style="color:#55524b">Stop these mails</a></p>` : ''}
+<p>— Squishline</p></div>`;
+	const headers = opts.unsubscribeUrl
+		? { 'List-Unsubscribe': `<${opts.unsubscribeUrl}>` }
+		: undefined;
+	return { to: opts.to, subject: opts.subject, text, html, headers };
+}
+
 /** A plain letter with one link: readable as text, tidy as HTML. */
 export function linkLetter(opts: {
 	to: string;
@@ -40,10 +79,11 @@ export function linkLetter(opts: {
 	action: string;
 	outro: string;
 }): Letter {
-	const text = `${opts.intro}\n\n${opts.action}: ${opts.url}\n\n${opts.outro}\n\n— Squishline`;
-	const html = `<div style="font-family:sans-serif;color:#2a2926;max-width:32rem">
-<p>${esc(opts.intro)}</p>
-<p><a href="${esc(opts.url)}" style="color:#a8471f;font-weight:600">${esc(opts.action)}</a></p>
-<p style="font-size:13px;color:#55524b">${esc(opts.outro)}</p><p>— Squishline</p></div>`;
-	return { to: opts.to, subject: opts.subject, text, html };
+	return compose({
+		to: opts.to,
+		subject: opts.subject,
+		paragraphs: [opts.intro],
+		action: { label: opts.action, url: opts.url },
+		footer: opts.outro
+	});
 }

@@ -1,15 +1,25 @@
 import { fail } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
+import { deskNoteSchema } from '$lib/schemas/desk';
+import { deskActionSchema } from '$lib/schemas/moderation';
+import { clock } from '$lib/server/clock';
 import * as deskNotes from '$lib/server/db/desk-notes';
 import { requireRole } from '$lib/server/guard';
-import { deskNoteSchema } from '$lib/schemas/desk';
+import { decide, NEEDS_REASON } from '$lib/server/moderation/desk';
+import { deskQueue } from '$lib/server/moderation/queue';
+import { parseForm } from '$lib/server/plain-form';
+import { LOG_LABEL } from '$lib/moderation/kinds';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'moderator');
-	const [notes, form] = await Promise.all([deskNotes.list(), superValidate(zod4(deskNoteSchema))]);
-	return { notes, form };
+	const [queue, notes, form] = await Promise.all([
+		deskQueue(),
+		deskNotes.list(),
+		superValidate(zod4(deskNoteSchema))
+	]);
+	return { queue, notes, form };
 };
 
 export const actions: Actions = {
@@ -20,5 +30,24 @@ export const actions: Actions = {
 		await deskNotes.create(me.id, form.data.body);
 		form.data.body = '';
 		return message(form, 'Note pinned to the desk.');
+	},
+	decide: async (event) => {
+		const me = requireRole(event, 'moderator');
+		const form = await parseForm(event.request, deskActionSchema);
+		const caseId = Number(form.values.caseId) || 0;
+		if (!form.ok)
+			return fail(400, { desk: { caseId, values: form.values, message: form.message } });
+		if (NEEDS_REASON.includes(form.data.action) && !form.data.reason)
+			return fail(400, {
+				desk: {
+					caseId,
+					values: form.values,
+					message: 'Write the reason first: it is shown to readers or mailed to the author.'
+				}
+			});
+		await decide(me, form.data.caseId, form.data, clock());
+		return {
+			done: { caseId, message: `${LOG_LABEL[form.data.action]}. Logged and mailed to the author.` }
+		};
 	}
 };

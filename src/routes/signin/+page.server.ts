@@ -1,5 +1,4 @@
 import { fail, isRedirect, redirect } from '@sveltejs/kit';
-import { AccessDenied } from '@auth/core/errors';
 import { CredentialsSignin } from '@auth/sveltekit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
@@ -12,7 +11,6 @@ const REASONS: Record<string, string> = {
 	credentials: 'That e-mail and password do not match an account.',
 	unverified:
 		'Confirm your e-mail address first: use the link in the mail we sent when you joined.',
-	suspended: 'This account is suspended. Write to the moderators if you think this is a mistake.',
 	'rate-limited':
 		'Too many wrong passwords for this account. Wait 15 minutes, or reset the password by mail.'
 };
@@ -87,7 +85,6 @@ export const actions: Actions = {
 			);
 		} catch (e) {
 			if (isRedirect(e)) throw e;
-			if (e instanceof AccessDenied) return message(form, REASONS.suspended, { status: 403 });
 			console.error('[sign-in link]', e);
 			return message(form, 'We could not send the mail just now. Try again in a few minutes.', {
 				status: 503

@@ -1,3 +1,4 @@
+import { activeSuspension, type Suspension } from '../../moderation/suspension';
 import type { Role } from '../../roles';
 import * as users from '../db/users';
 
@@ -7,27 +8,31 @@ export type CurrentUser = {
 	name: string;
 	role: Role;
 	units: 'metric' | 'imperial';
+	/** Set while suspended: the member reads but cannot change anything (see the guard). */
+	suspension: Suspension | null;
 };
 
-export type LoadedUser = { user: CurrentUser | null; suspended: boolean };
+export type LoadedUser = { user: CurrentUser | null };
 
 /**
  * Reads the account behind a session id fresh from the database. Called on every request, so a
- * role change or a suspension counts from the very next request, whatever the token says.
+ * role change, a suspension or its end counts from the very next request, whatever the token says.
  */
-export async function loadCurrentUser(userId: string | null | undefined): Promise<LoadedUser> {
-	if (!userId) return { user: null, suspended: false };
+export async function loadCurrentUser(
+	userId: string | null | undefined,
+	now: Date = new Date()
+): Promise<LoadedUser> {
+	if (!userId) return { user: null };
 	const row = await users.read(userId);
-	if (!row) return { user: null, suspended: false };
-	if (row.suspendedAt) return { user: null, suspended: true };
+	if (!row) return { user: null };
 	return {
 		user: {
 			id: row.id,
 			email: row.email,
 			name: row.name ?? row.email.split('@')[0],
 			role: row.role,
-			units: row.units
-		},
-		suspended: false
+			units: row.units,
+			suspension: activeSuspension(row, now)
+		}
 	};
 }

@@ -78,11 +78,6 @@ function authConfig(): SvelteKitAuthConfig {
 			})
 		],
 		callbacks: {
-			async signIn({ user }) {
-				// A suspended account gets no new session by any route in.
-				const row = user.email ? await users.readByEmail(user.email) : null;
-				return !row?.suspendedAt;
-			},
 			async session({ session, token }) {
 				if (token.sub) session.user.id = token.sub;
 				return session;

@@ -30,3 +30,36 @@ export async function isBlocked(limiter: RateLimiterMemory, key: string): Promis
 	const r = await limiter.get(key);
 	return r !== null && r.remainingPoints <= 0;
 }
+
+/** Comments: 10 per account and 30 per address in 10 minutes. */
+export const commentsByAccount = new RateLimiterMemory({ points: 10, duration: 600 });
+export const commentsByAddress = new RateLimiterMemory({ points: 30, duration: 600 });
+
+/** Reports: 10 per account and 30 per address an hour. */
+export const reportsByAccount = new RateLimiterMemory({ points: 10, duration: 3600 });
+export const reportsByAddress = new RateLimiterMemory({ points: 30, duration: 3600 });
+
+/** Messages to shops: 5 per account and 15 per address an hour. */
+export const messagesByAccount = new RateLimiterMemory({ points: 5, duration: 3600 });
+export const messagesByAddress = new RateLimiterMemory({ points: 15, duration: 3600 });
+
+export type Spent = { ok: true } | { ok: false; retryAfterS: number };
+
+/** Spends a point from each limiter; refused as soon as one is used up, with the wait. */
+export async function spend(pairs: [RateLimiterMemory, string][]): Promise<Spent> {
+	for (const [limiter, key] of pairs) {
+		try {
+			await limiter.consume(key);
+		} catch (res) {
+			const ms = (res as { msBeforeNext?: number }).msBeforeNext ?? limiter.duration * 1000;
+			return { ok: false, retryAfterS: Math.ceil(ms / 1000) };
+		}
+	}
+	return { ok: true };
+}
+
+/** "Try again in 7 minutes" for a refused spend. */
+export function waitText(seconds: number): string {
+	if (seconds < 90) return `${seconds} seconds`;
+	return `${Math.ceil(seconds / 60)} minutes`;
+}

@@ -4,7 +4,7 @@ import { checkPassword } from './password';
 
 export type PasswordSignInResult =
 	| { ok: true; user: { id: string; email: string; name: string | null } }
-	| { ok: false; code: 'credentials' | 'unverified' | 'suspended' | 'rate-limited' };
+	| { ok: false; code: 'credentials' | 'unverified' | 'rate-limited' };
 
 /**
  * The one gate for e-mail + password sign-in, used by Auth.js's authorize(). Failures count per
@@ -21,7 +21,6 @@ export async function verifyPasswordSignIn(
 		await take(passwordFailures, key);
 		return { ok: false, code: 'credentials' };
 	}
-	if (user.suspendedAt) return { ok: false, code: 'suspended' };
 	if (!user.emailVerified) return { ok: false, code: 'unverified' };
 	await passwordFailures.delete(key);
 	return { ok: true, user: { id: user.id, email: user.email, name: user.name } };

@@ -9,6 +9,7 @@ import * as m005 from './migrations/2026.12.01T23.50.00.close-builds-columns';
 import * as m006 from './migrations/2026.12.02T00.05.00.close-builds-exhaust-index';
 import * as m007 from './migrations/2026.12.02T03.00.00.close-builds-by-carb';
 import * as m008 from './migrations/2026.12.02T04.00.00.stats-and-search';
+import * as m009 from './migrations/2026.12.02T06.00.00.moderation';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -21,7 +22,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.01T23.50.00.close-builds-columns', ...m005 },
 	{ name: '2026.12.02T00.05.00.close-builds-exhaust-index', ...m006 },
 	{ name: '2026.12.02T03.00.00.close-builds-by-carb', ...m007 },
-	{ name: '2026.12.02T04.00.00.stats-and-search', ...m008 }
+	{ name: '2026.12.02T04.00.00.stats-and-search', ...m008 },
+	{ name: '2026.12.02T06.00.00.moderation', ...m009 }
 ];
 
 export function migrator() {

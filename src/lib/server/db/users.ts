@@ -13,6 +13,7 @@ export type UserPatch = Partial<
 		| 'role'
 		| 'suspendedAt'
 		| 'suspendedReason'
+		| 'suspendedUntil'
 	>
 >;
 

@@ -2,6 +2,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { deriveRun, deriveSetup } from '../../sheet/derive';
 import { changeKind, judgeStep, type StepRun } from '../../sheet/change-kinds';
 import { models } from '../db/models';
+import { scanBuild } from '../moderation/flags';
 
 const same = (a: number | null, b: number | null) =>
 	a === null ? b === null : b !== null && Math.abs(a - b) < 1e-9;
@@ -101,7 +102,7 @@ export async function refreshListing(buildId: number): Promise<void> {
 	if (!b) return;
 	const open = b.publication === 'published' && b.moderation === 'visible';
 	const rep = await Setup.findOne({
-		where: { buildId, bestRunKmh: { [Op.ne]: null } },
+		where: { buildId, bestRunKmh: { [Op.ne]: null }, moderation: 'visible' },
 		attributes: ['id', 'exhaustType', 'displacementCc', 'bestRunElevationM'],
 		order: [['position', 'DESC']]
 	});
@@ -116,7 +117,7 @@ export async function refreshListing(buildId: number): Promise<void> {
 	);
 	// One statement for all of the build's setups.
 	await Setup.sequelize!.query(
-		'UPDATE setups SET engine_cycle = :cycle, engine_family = :family, listed = (:open AND id = :rep), any_listed = (:open AND best_run_kmh IS NOT NULL) WHERE build_id = :buildId',
+		"UPDATE setups SET engine_cycle = :cycle, engine_family = :family, listed = (:open AND id = :rep), any_listed = (:open AND best_run_kmh IS NOT NULL AND moderation = 'visible') WHERE build_id = :buildId",
 		{
 			replacements: {
 				cycle: b.engineCycle,
@@ -128,6 +129,8 @@ export async function refreshListing(buildId: number): Promise<void> {
 		}
 	);
 	await refreshSteps(buildId);
+	// Every save ends here, so the automatic flags see every published change.
+	await scanBuild(buildId);
 }
 
 /**

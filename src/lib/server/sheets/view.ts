@@ -43,6 +43,8 @@ export async function buildView(b: Build, units: Units) {
 		return {
 			id: s.id,
 			position: s.position,
+			moderation: s.moderation,
+			hiddenReason: s.hiddenReason,
 			changeNote: s.changeNote,
 			isStock: s.isStock,
 			version: s.version,

@@ -7,8 +7,8 @@ const MESSAGES: Record<string, { title: string; body: string }> = {
 		body: 'Each link works once and for 24 hours. This one was used already or has expired. Ask for a new one below.'
 	},
 	AccessDenied: {
-		title: 'This account cannot sign in',
-		body: 'The account is suspended. Write to the moderators if you think this is a mistake.'
+		title: 'This sign-in was refused',
+		body: 'The sign-in did not go through. Nothing was changed; ask for a new link below.'
 	}
 };
 const FALLBACK = {

@@ -27,6 +27,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 	declare publishedAt: CreationOptional<Date | null>;
 	declare moderation: CreationOptional<'visible' | 'hidden'>;
 	declare hiddenReason: CreationOptional<string | null>;
+	declare commentsMailedAt: CreationOptional<Date | null>;
 	declare version: CreationOptional<number>;
 	declare bestSpeedKmh: CreationOptional<number | null>;
 	declare stockSpeedKmh: CreationOptional<number | null>;
@@ -79,6 +80,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 					defaultValue: 'visible'
 				},
 				hiddenReason: DataTypes.STRING(500),
+				commentsMailedAt: DataTypes.DATE,
 				version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				bestSpeedKmh: DataTypes.DOUBLE,
 				stockSpeedKmh: DataTypes.DOUBLE,

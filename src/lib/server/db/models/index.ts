@@ -2,8 +2,10 @@ import { db } from '../connection';
 // Account and Session associations are made by @auth/sequelize-adapter itself.
 import { Account, Session, VerificationToken, setupAuthTables } from './auth-tables';
 import { Build } from './build';
+import { Comment } from './comment';
 import { DeskNote } from './desk-note';
 import { EmailToken } from './email-token';
+import { Flag, LogEntry, Report, ReviewCase } from './moderation';
 import { Part } from './part';
 import { Photo } from './photo';
 import { Run } from './run';
@@ -13,6 +15,11 @@ import { User } from './user';
 export {
 	Account,
 	Build,
+	Comment,
+	Flag,
+	LogEntry,
+	Report,
+	ReviewCase,
 	DeskNote,
 	EmailToken,
 	Part,
@@ -39,6 +46,12 @@ export function models() {
 		Run.setup(sequelize);
 		Part.setup(sequelize);
 		Photo.setup(sequelize);
+		Comment.setup(sequelize);
+		Report.setup(sequelize);
+		Flag.setup(sequelize);
+		ReviewCase.setup(sequelize);
+		LogEntry.setup(sequelize);
+		Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 		Build.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
 		Build.hasMany(Setup, { foreignKey: 'buildId', as: 'setups' });
 		Setup.hasMany(Run, { foreignKey: 'setupId', as: 'runs' });
@@ -58,6 +71,11 @@ export function models() {
 		Setup,
 		Run,
 		Part,
-		Photo
+		Photo,
+		Comment,
+		Report,
+		Flag,
+		ReviewCase,
+		LogEntry
 	};
 }

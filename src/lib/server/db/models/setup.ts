@@ -41,6 +41,8 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
 	declare bestRunTwoWay: CreationOptional<boolean | null>;
 	declare bestRunVenue: CreationOptional<string | null>;
 	declare engineFamily: CreationOptional<string>;
+	declare moderation: CreationOptional<'visible' | 'hidden'>;
+	declare hiddenReason: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -91,6 +93,12 @@ export class Setup extends Model<InferAttributes<Setup>, InferCreationAttributes
 				bestRunTwoWay: DataTypes.BOOLEAN,
 				bestRunVenue: DataTypes.STRING(20),
 				engineFamily: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
+				moderation: {
+					type: DataTypes.ENUM('visible', 'hidden'),
+					allowNull: false,
+					defaultValue: 'visible'
+				},
+				hiddenReason: DataTypes.STRING(500),
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
 			},

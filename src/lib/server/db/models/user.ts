@@ -19,6 +19,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 	declare role: CreationOptional<Role>;
 	declare suspendedAt: CreationOptional<Date | null>;
 	declare suspendedReason: CreationOptional<string | null>;
+	/** NULL with suspendedAt set: suspended until lifted. */
+	declare suspendedUntil: CreationOptional<Date | null>;
 	declare units: CreationOptional<'metric' | 'imperial'>;
 	declare mailComments: CreationOptional<boolean>;
 	declare mailShop: CreationOptional<boolean>;
@@ -38,6 +40,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 				role: { type: DataTypes.ENUM(...ROLES), allowNull: false, defaultValue: 'member' },
 				suspendedAt: DataTypes.DATE,
 				suspendedReason: DataTypes.STRING(500),
+				suspendedUntil: DataTypes.DATE,
 				units: {
 					type: DataTypes.ENUM('metric', 'imperial'),
 					allowNull: false,

@@ -1,0 +1,27 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import { commentEditSchema } from '$lib/schemas/moderation';
+import { api, parse, readJson } from '$lib/server/api';
+import { clock } from '$lib/server/clock';
+import { deleteComment, editComment } from '$lib/server/comments';
+import { requireUser } from '$lib/server/guard';
+import type { RequestHandler } from './$types';
+
+const commentId = (raw: string) => parse(z.coerce.number().int().positive(), raw);
+
+export const PATCH: RequestHandler = api(async (event) => {
+	const me = requireUser(event);
+	const id = commentId(event.params.commentId);
+	const { body } = parse(
+		commentEditSchema.omit({ commentId: true }),
+		await readJson(event.request)
+	);
+	await editComment(me, id, body, clock());
+	return json({ ok: true });
+});
+
+export const DELETE: RequestHandler = api(async (event) => {
+	const me = requireUser(event);
+	await deleteComment(me, commentId(event.params.commentId), clock());
+	return new Response(null, { status: 204 });
+});

@@ -1,0 +1,25 @@
+import { reportSchema } from '$lib/schemas/moderation';
+import { api, ApiFailure, created, parse, readJson } from '$lib/server/api';
+import { reportsByAccount, reportsByAddress, spend, waitText } from '$lib/server/auth/limits';
+import { clock } from '$lib/server/clock';
+import { requireUser } from '$lib/server/guard';
+import { fileReport } from '$lib/server/moderation/reports';
+import type { RequestHandler } from './$types';
+
+export const POST: RequestHandler = api(async (event) => {
+	const me = requireUser(event);
+	const body = parse(reportSchema, await readJson(event.request));
+	const limit = await spend([
+		[reportsByAccount, me.id],
+		[reportsByAddress, event.getClientAddress()]
+	]);
+	if (!limit.ok)
+		throw new ApiFailure(429, `Too many reports; try again in ${waitText(limit.retryAfterS)}.`);
+	const r = await fileReport(
+		me,
+		{ type: body.itemType, id: body.itemId },
+		{ reason: body.reason, note: body.note },
+		clock()
+	);
+	return created({ filed: r.filed });
+});

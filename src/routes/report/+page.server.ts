@@ -1,0 +1,61 @@
+import { error, fail } from '@sveltejs/kit';
+import { message, superValidate } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
+import { ITEM_LABEL, ITEM_TYPES, type ItemType } from '$lib/moderation/kinds';
+import { reportSchema } from '$lib/schemas/moderation';
+import { reportsByAccount, reportsByAddress, spend, waitText } from '$lib/server/auth/limits';
+import { clock } from '$lib/server/clock';
+import { requireUser } from '$lib/server/guard';
+import { requireItem } from '$lib/server/moderation/items';
+import { fileReport } from '$lib/server/moderation/reports';
+import type { Actions, PageServerLoad } from './$types';
+
+/** Only same-site paths, so the form's "back" link can never lead off Squishline. */
+const safeBack = (v: string | null) => (v && /^\/(?!\/)/.test(v) ? v : '/');
+
+export const load: PageServerLoad = async (event) => {
+	const me = requireUser(event);
+	const type = event.url.searchParams.get('type') as ItemType;
+	const id = Number(event.url.searchParams.get('id'));
+	if (!ITEM_TYPES.includes(type) || !Number.isInteger(id) || id <= 0) error(404, 'No such item.');
+	const item = await requireItem({ type, id });
+	if (!item.open && item.authorId !== me.id) error(404, 'No such item.');
+	const form = await superValidate({ itemType: type, itemId: id }, zod4(reportSchema), {
+		errors: false
+	});
+	return {
+		form,
+		item: { label: ITEM_LABEL[type], title: item.title, href: item.href },
+		back: safeBack(event.url.searchParams.get('back'))
+	};
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const me = requireUser(event);
+		const form = await superValidate(event.request, zod4(reportSchema));
+		if (!form.valid) return fail(400, { form });
+		const limit = await spend([
+			[reportsByAccount, me.id],
+			[reportsByAddress, event.getClientAddress()]
+		]);
+		if (!limit.ok)
+			return message(
+				form,
+				`You have sent a lot of reports in a short time. Try again in ${waitText(limit.retryAfterS)}; your note is kept.`,
+				{ status: 429 }
+			);
+		const r = await fileReport(
+			me,
+			{ type: form.data.itemType, id: form.data.itemId },
+			{ reason: form.data.reason, note: form.data.note },
+			clock()
+		);
+		return message(
+			form,
+			r.filed
+				? 'Thank you. The review desk will look at it; one report never takes anything down by itself.'
+				: 'You have already reported this and the desk has not decided yet. Nothing was added.'
+		);
+	}
+};

@@ -1,0 +1,250 @@
+import { QueryTypes } from 'sequelize';
+import { afterAll, describe, expect, it } from 'vitest';
+import { loadCurrentUser } from '../../src/lib/server/auth/current-user';
+import { flushCommentDigests } from '../../src/lib/server/comment-digest';
+import { createComment, editComment } from '../../src/lib/server/comments';
+import { closeDb, db } from '../../src/lib/server/db/connection';
+import * as builds from '../../src/lib/server/db/builds';
+import { models } from '../../src/lib/server/db/models';
+import { readCase } from '../../src/lib/server/moderation/cases';
+import { decide } from '../../src/lib/server/moderation/desk';
+import * as log from '../../src/lib/server/moderation/log';
+import { fileReport } from '../../src/lib/server/moderation/reports';
+import { listMail } from '../../src/lib/server/outbox';
+import { unsubscribeUrl } from '../../src/lib/server/unsubscribe';
+import { actions as unsubscribeActions } from '../../src/routes/unsubscribe/[token]/+page.server';
+import { actions as buildActions } from '../../src/routes/builds/[id]/+page.server';
+import { asUser, fakeEvent } from '../support/events';
+import { makeUser } from '../support/factories';
+import { publishedBuild } from '../support/moderation-fixtures';
+
+afterAll(closeDb);
+
+const MIN = 60_000;
+const address = () => `10.9.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
+
+async function mailsTo(email: string) {
+	return listMail(email);
+}
+
+describe('the moderation log', () => {
+	it('refuses UPDATE and DELETE from the app database account, and takes INSERTs', async () => {
+		const mod = await makeUser({ role: 'moderator' });
+		await log.append({ at: new Date(), actorId: mod.id, action: 'warn', reason: 'append test' });
+		const [{ id }] = await db().query<{ id: number }>(
+			"SELECT id FROM moderation_log WHERE reason = 'append test' ORDER BY id DESC LIMIT 1",
+			{ type: QueryTypes.SELECT }
+		);
+		// 1142 = ER_TABLEACCESS_DENIED_ERROR: the grant is missing, not a rule in our code.
+		await expect(
+			db().query(`UPDATE moderation_log SET reason = 'changed' WHERE id = ${id}`)
+		).rejects.toThrow(/UPDATE command denied/);
+		await expect(db().query(`DELETE FROM moderation_log WHERE id = ${id}`)).rejects.toThrow(
+			/DELETE command denied/
+		);
+		// Sequelize's own paths end in the same refusal.
+		await expect(
+			models().LogEntry.update({ reason: 'changed' }, { where: { id } })
+		).rejects.toThrow(/denied/);
+		const still = await models().LogEntry.findByPk(id);
+		expect(still?.reason).toBe('append test');
+	});
+});
+
+describe('comment digest (injected clock)', () => {
+	it('sends one mail for three comments within the hour, none before the hour is up', async () => {
+		const owner = await makeUser();
+		const other = await makeUser();
+		const { build } = await publishedBuild(owner.id, 'Digest fixture');
+		const t0 = new Date();
+		const me = asUser(other);
+		for (const [i, body] of ['First question', 'Second thought', 'Third note'].entries())
+			await createComment(me, build, { body }, address(), new Date(t0.getTime() + i * 10 * MIN));
+		const before = (await mailsTo(owner.email)).length;
+		await flushCommentDigests(new Date(t0.getTime() + 30 * MIN));
+		expect((await mailsTo(owner.email)).length).toBe(before);
+		await flushCommentDigests(new Date(t0.getTime() + 61 * MIN));
+		const after = await mailsTo(owner.email);
+		expect(after.length).toBe(before + 1);
+		expect(after[0].subject).toBe('3 new comments on “Digest fixture”');
+		for (const words of ['First question', 'Second thought', 'Third note', 'Stop these mails'])
+			expect(after[0].text).toContain(words);
+		// Nothing new: nothing more to send.
+		await flushCommentDigests(new Date(t0.getTime() + 125 * MIN));
+		expect((await mailsTo(owner.email)).length).toBe(before + 1);
+	});
+
+	it('the one-click unsubscribe link stops that mail', async () => {
+		const owner = await makeUser();
+		const other = await makeUser();
+		const { build } = await publishedBuild(owner.id, 'Unsubscribe fixture');
+		const url = new URL(unsubscribeUrl(owner.id, 'comments'));
+		const token = url.pathname.split('/').pop()!;
+		const result = await unsubscribeActions.default(
+			fakeEvent({ params: { token }, path: url.pathname, form: {} })
+		);
+		expect(result).toEqual({ done: true });
+		expect((await models().User.findByPk(owner.id))?.mailComments).toBe(false);
+		const t0 = new Date();
+		await createComment(asUser(other), build, { body: 'Hello?' }, address(), t0);
+		await flushCommentDigests(new Date(t0.getTime() + 61 * MIN));
+		expect(await mailsTo(owner.email)).toHaveLength(0);
+		// A forged token changes nothing.
+		const forged = await unsubscribeActions.default(
+			fakeEvent({ params: { token: `${token.slice(0, -2)}xx` }, path: url.pathname, form: {} })
+		);
+		expect(forged).toMatchObject({ status: 400 });
+	});
+});
+
+describe('suspension', () => {
+	it('ends by itself: refused while it lasts, allowed again after', async () => {
+		const owner = await makeUser();
+		const author = await makeUser();
+		const mod = await makeUser({ role: 'moderator' });
+		const { build } = await publishedBuild(owner.id);
+		const t0 = new Date();
+		const c = await createComment(asUser(author), build, { body: 'Fine words' }, address(), t0);
+		await fileReport(
+			asUser(owner),
+			{ type: 'comment', id: c.id },
+			{ reason: 'spam', note: '' },
+			t0
+		);
+		const kase = await readCase({ type: 'comment', id: c.id });
+		await decide(
+			asUser(mod, 'moderator'),
+			kase!.id,
+			{ action: 'suspend', reason: 'spam run', days: 2 },
+			t0
+		);
+
+		const post = async (at: Date) => {
+			const { user } = await loadCurrentUser(author.id, at);
+			try {
+				return await buildActions.comment(
+					fakeEvent({
+						user,
+						params: { id: String(build.id) },
+						path: `/builds/${build.id}`,
+						form: { body: 'Back again' },
+						address: address()
+					})
+				);
+			} catch (e) {
+				return e as { status: number; body?: { message: string }; location?: string };
+			}
+		};
+		const during = (await post(new Date(t0.getTime() + 47 * 3600_000))) as {
+			status: number;
+			body: { message: string };
+		};
+		expect(during.status).toBe(403);
+		expect(during.body.message).toMatch(/suspended until .*: spam run/);
+		const afterwards = (await post(new Date(t0.getTime() + 48 * 3600_000 + 1))) as {
+			status: number;
+			location: string;
+		};
+		expect(afterwards.status).toBe(303);
+		expect(afterwards.location).toMatch(new RegExp(`/builds/${build.id}#comment-\\d+`));
+		const mails = await mailsTo(author.email);
+		expect(mails.some((m) => m.subject.includes('suspended') && m.text.includes('spam run'))).toBe(
+			true
+		);
+	});
+});
+
+describe('reports, flags and the caution banner', () => {
+	it('one report never raises the banner; three unsafe reporters, a triage or a flag do', async () => {
+		const owner = await makeUser();
+		const { build } = await publishedBuild(owner.id);
+		const ref = { type: 'build' as const, id: build.id };
+		const [a, b, c] = await Promise.all([makeUser(), makeUser(), makeUser()]);
+		const now = new Date();
+		const unsafe = { reason: 'unsafe' as const, note: 'no front brake' };
+		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({ filed: true, caution: false });
+		// The same person again: nothing added.
+		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({
+			filed: false,
+			caution: false
+		});
+		expect((await fileReport(asUser(b), ref, unsafe, now)).caution).toBe(false);
+		expect((await fileReport(asUser(c), ref, unsafe, now)).caution).toBe(true);
+		expect(await models().Report.count({ where: { itemType: 'build', itemId: build.id } })).toBe(3);
+	});
+
+	it('a triage raises it after a single report', async () => {
+		const owner = await makeUser();
+		const mod = await makeUser({ role: 'moderator' });
+		const { build } = await publishedBuild(owner.id);
+		const ref = { type: 'build' as const, id: build.id };
+		const r = await makeUser();
+		await fileReport(asUser(r), ref, { reason: 'wrong-data', note: '' }, new Date());
+		expect((await readCase(ref))?.caution).toBe(false);
+		const kase = await readCase(ref);
+		await decide(asUser(mod, 'moderator'), kase!.id, { action: 'triage', reason: '' }, new Date());
+		expect((await readCase(ref))?.caution).toBe(true);
+	});
+
+	it('a text rule in a comment raises a flag and the banner, and hides nothing', async () => {
+		const owner = await makeUser();
+		const { build } = await publishedBuild(owner.id);
+		const c = await createComment(
+			asUser(await makeUser()),
+			build,
+			{ body: 'Honestly, just remove the front brake, it is dead weight.' },
+			address(),
+			new Date()
+		);
+		const flags = await models().Flag.findAll({ where: { itemType: 'comment', itemId: c.id } });
+		expect(flags.map((f) => f.code)).toEqual(['text:brakes-removed']);
+		expect((await readCase({ type: 'comment', id: c.id }))?.caution).toBe(true);
+		expect((await models().Comment.findByPk(c.id))?.moderation).toBe('visible');
+	});
+
+	it('hide then restore returns a build exactly as it was, publication untouched', async () => {
+		const owner = await makeUser();
+		const mod = await makeUser({ role: 'moderator' });
+		const { build } = await publishedBuild(owner.id);
+		const ref = { type: 'build' as const, id: build.id };
+		await fileReport(asUser(await makeUser()), ref, { reason: 'unsafe', note: '' }, new Date());
+		const kase = (await readCase(ref))!;
+		const before = (await builds.read(build.id))!.get({ plain: true });
+		await decide(
+			asUser(mod, 'moderator'),
+			kase.id,
+			{ action: 'hide', reason: 'no brakes' },
+			new Date()
+		);
+		const hidden = (await builds.read(build.id))!;
+		expect([hidden.moderation, hidden.hiddenReason, hidden.publication]).toEqual([
+			'hidden',
+			'no brakes',
+			'published'
+		]);
+		expect(hidden.story).toBe(before.story);
+		await decide(asUser(mod, 'moderator'), kase.id, { action: 'restore', reason: '' }, new Date());
+		const back = (await builds.read(build.id))!.get({ plain: true });
+		expect({ ...back, updatedAt: null }).toEqual({ ...before, updatedAt: null });
+	});
+
+	it('a comment stays editable while under review even after a reply; otherwise a reply locks it', async () => {
+		const owner = await makeUser();
+		const author = asUser(await makeUser());
+		const { build } = await publishedBuild(owner.id);
+		const now = new Date();
+		const c = await createComment(author, build, { body: 'Try a 92 main' }, address(), now);
+		await createComment(asUser(owner), build, { body: 'Thanks', parentId: c.id }, address(), now);
+		await expect(editComment(author, c.id, 'Try a 94 main', now)).rejects.toMatchObject({
+			status: 409
+		});
+		await fileReport(
+			asUser(await makeUser()),
+			{ type: 'comment', id: c.id },
+			{ reason: 'wrong-data', note: '' },
+			now
+		);
+		await editComment(author, c.id, 'Try a 94 main', now);
+		expect((await models().Comment.findByPk(c.id))?.body).toBe('Try a 94 main');
+	});
+});
