@@ -31,7 +31,9 @@ describe('current user, read fresh on every request', () => {
 			until: until.toISOString()
 		});
 		// One millisecond before the end it still holds; at the end it is gone without anyone lifting it.
-		expect((await loadCurrentUser(u.id, new Date(until.getTime() - 1))).user?.suspension).not.toBeNull();
+		expect(
+			(await loadCurrentUser(u.id, new Date(until.getTime() - 1))).user?.suspension
+		).not.toBeNull();
 		expect((await loadCurrentUser(u.id, until)).user?.suspension).toBeNull();
 	});
 
