@@ -141,7 +141,8 @@ export async function createComment(
 	return c;
 }
 
-async function ownComment(me: CurrentUser, commentId: number) {
+/** The comment if it is the caller's; 404 otherwise, so others learn nothing about it. */
+export async function ownComment(me: CurrentUser, commentId: number) {
 	const c = await models().Comment.findByPk(commentId);
 	if (!c || c.authorId !== me.id) error(404, 'No such comment of yours.');
 	return c;

@@ -1,4 +1,4 @@
-import { redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import { confirmAddress } from '$lib/server/accounts';
 import * as tokens from '$lib/server/auth/email-tokens';
 import type { Actions, PageServerLoad } from './$types';
@@ -11,7 +11,7 @@ export const load: PageServerLoad = async ({ params }) => ({
 export const actions: Actions = {
 	default: async ({ params }) => {
 		const used = await confirmAddress(params.token);
-		if (!used.ok) return { problem: used.reason };
+		if (!used.ok) return fail(400, { problem: used.reason });
 		redirect(303, '/signin?verified=1');
 	}
 };

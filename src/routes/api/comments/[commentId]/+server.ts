@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { commentEditSchema } from '$lib/schemas/moderation';
 import { api, parse, readJson } from '$lib/server/api';
 import { clock } from '$lib/server/clock';
-import { deleteComment, editComment } from '$lib/server/comments';
+import { deleteComment, editComment, ownComment } from '$lib/server/comments';
 import { requireUser } from '$lib/server/guard';
 import type { RequestHandler } from './$types';
 
@@ -12,6 +12,8 @@ const commentId = (raw: string) => parse(z.coerce.number().int().positive(), raw
 export const PATCH: RequestHandler = api(async (event) => {
 	const me = requireUser(event);
 	const id = commentId(event.params.commentId);
+	// Whose it is comes before what was sent, so a stranger learns nothing from the body's errors.
+	await ownComment(me, id);
 	const { body } = parse(
 		commentEditSchema.omit({ commentId: true }),
 		await readJson(event.request)
