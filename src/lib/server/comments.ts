@@ -26,7 +26,8 @@ export type CommentView = {
 	hiddenReason: string | null;
 	caution: boolean;
 	canEdit: boolean;
-	canAskAgain: boolean;
+	/** For the author of a taken-down comment: whether the one request for another look is left. */
+	secondLook: 'none' | 'asked' | 'used' | null;
 	replies: number;
 };
 
@@ -42,11 +43,14 @@ const open = (b: Build) => b.publication === 'published' && b.moderation === 'vi
 async function editable(
 	c: Comment,
 	replies: number
-): Promise<{ edit: boolean; askAgain: boolean }> {
-	if (c.deletedAt) return { edit: false, askAgain: false };
+): Promise<{ edit: boolean; secondLook: CommentView['secondLook'] }> {
+	if (c.deletedAt) return { edit: false, secondLook: null };
 	const kase = await readCase({ type: 'comment', id: c.id });
-	const askAgain = c.moderation === 'hidden' && kase?.secondLook === 'none';
-	return { edit: replies === 0 || Boolean(kase?.onDesk) || askAgain, askAgain };
+	const secondLook = c.moderation === 'hidden' ? (kase?.secondLook ?? 'none') : null;
+	return {
+		edit: replies === 0 || Boolean(kase?.onDesk) || secondLook === 'none',
+		secondLook
+	};
 }
 
 export async function listComments(b: Build, me: CurrentUser | null): Promise<CommentView[]> {
@@ -70,7 +74,7 @@ export async function listComments(b: Build, me: CurrentUser | null): Promise<Co
 			const mine = me !== null && c.authorId === me.id;
 			const state = c.deletedAt ? 'deleted' : c.moderation === 'hidden' ? 'hidden' : 'shown';
 			const readable = state === 'shown' || (state === 'hidden' && (mine || staff));
-			const rights = mine ? await editable(c, replies) : { edit: false, askAgain: false };
+			const rights = mine ? await editable(c, replies) : { edit: false, secondLook: null };
 			return {
 				id: c.id,
 				parentId: c.parentId,
@@ -85,7 +89,7 @@ export async function listComments(b: Build, me: CurrentUser | null): Promise<Co
 				hiddenReason: c.hiddenReason,
 				caution: cautions.has(c.id) && state === 'shown',
 				canEdit: rights.edit,
-				canAskAgain: rights.askAgain,
+				secondLook: rights.secondLook,
 				replies
 			};
 		})
@@ -120,7 +124,8 @@ export async function createComment(
 	let setupId = input.setupId ?? null;
 	if (input.parentId) {
 		const parent = await Comment.findOne({ where: { id: input.parentId, buildId: b.id } });
-		if (!parent || parent.deletedAt) error(400, 'That comment cannot be replied to.');
+		if (!parent || parent.deletedAt || parent.moderation === 'hidden')
+			error(400, 'That comment cannot be replied to.');
 		// One level of replies: answering a reply joins its parent's thread.
 		parentId = parent.parentId ?? parent.id;
 		setupId = parent.setupId;

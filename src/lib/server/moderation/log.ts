@@ -43,6 +43,7 @@ export type LogFilter = {
 	itemId?: number;
 	subjectId?: string;
 	beforeId?: number;
+	afterId?: number;
 	limit?: number;
 	order?: 'newest' | 'oldest';
 };
@@ -55,6 +56,7 @@ export async function list(f: LogFilter = {}): Promise<LogView[]> {
 	if (f.itemId) Object.assign(where, { itemId: f.itemId });
 	if (f.subjectId) Object.assign(where, { subjectId: f.subjectId });
 	if (f.beforeId) Object.assign(where, { id: { [Op.lt]: f.beforeId } });
+	if (f.afterId) Object.assign(where, { id: { [Op.gt]: f.afterId } });
 	const rows = await LogEntry.findAll({
 		where,
 		order: [['id', f.order === 'oldest' ? 'ASC' : 'DESC']],

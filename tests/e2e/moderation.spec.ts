@@ -1,0 +1,104 @@
+import { expect, test, type Browser, type Page } from '@playwright/test';
+import { publishedBuild } from '../support/moderation-fixtures';
+import { makeUser, openNewestMail, signInWithPassword } from './support';
+
+// The whole path of one unsafe comment through the review desk, each person in their own browser.
+
+async function as(browser: Browser, who: { email: string; password: string }): Promise<Page> {
+	const page = await (await browser.newContext()).newPage();
+	await signInWithPassword(page, who.email, who.password);
+	await expect(page.getByRole('banner')).toContainText('Sign out');
+	return page;
+}
+
+/** The desk's card for the comment, found by the build's unique title. */
+const caseCard = (page: Page, title: string) =>
+	page
+		.getByRole('article')
+		.filter({ has: page.getByRole('link', { name: `comment on “${title}”` }) });
+
+test('a reported comment is triaged, taken down, changed, looked at again and put back; the log has it all', async ({
+	browser
+}) => {
+	test.setTimeout(90_000);
+	const author = await makeUser();
+	const reporter = await makeUser();
+	const moderator = await makeUser({ role: 'moderator' });
+	const title = `Desk flow ${Date.now()}`;
+	const { build } = await publishedBuild(author.id, title);
+
+	// The author gives advice the desk will not keep.
+	const a = await as(browser, author);
+	await a.goto(`/builds/${build.id}#comments`);
+	await a.getByLabel(/Your comment/).fill('Unbolt the front caliper, it only costs you top speed.');
+	await a.getByRole('button', { name: 'Post the comment' }).click();
+	const mine = a.getByRole('article', { name: /Comment by/ }).first();
+	await expect(mine).toContainText('Unbolt the front caliper');
+	const commentId = (await mine.getAttribute('id'))!.replace('comment-', '');
+
+	// Another member reports it as unsafe.
+	const r = await as(browser, reporter);
+	await r.goto(`/builds/${build.id}#comments`);
+	await r
+		.locator(`#comment-${commentId}`)
+		.getByRole('link', { name: /Report/ })
+		.click();
+	await expect(r.getByRole('heading', { name: 'Report a comment' })).toBeVisible();
+	await r.getByLabel('Unsafe advice').check();
+	await r
+		.getByLabel('A note for the review desk')
+		.fill('Tells people to ride without a front brake.');
+	await r.getByRole('button', { name: 'Send the report' }).click();
+	await expect(r.getByText(/Thank/)).toBeVisible();
+
+	// The moderator triages it, then takes it down with a reason.
+	const m = await as(browser, moderator);
+	await m.goto('/review');
+	let card = caseCard(m, title);
+	await expect(card).toContainText('Tells people to ride without a front brake.');
+	await card.getByRole('button', { name: 'Triage as a concern' }).click();
+	await expect(card).toContainText('triaged as a concern');
+	await card.getByLabel('Reason').fill('advice to ride without a front brake');
+	await card.getByRole('button', { name: 'Take down' }).click();
+	await expect(card).toHaveCount(0);
+
+	// Readers see the reason in place of the words.
+	await r.goto(`/builds/${build.id}?after=hide`);
+	const shown = r.locator(`#comment-${commentId}`);
+	await expect(shown).toContainText(
+		'Taken down by the review desk: advice to ride without a front brake'
+	);
+	await expect(shown).not.toContainText('Unbolt the front caliper');
+
+	// The author has the decision by mail, changes the comment and asks once for another look.
+	const mail = await (await browser.newContext()).newPage();
+	await openNewestMail(mail, author.email, /Review desk: .*comment on/);
+	await expect(mail.locator('main')).toContainText('advice to ride without a front brake');
+	await a.goto(`/builds/${build.id}#comments`);
+	const hidden = a.locator(`#comment-${commentId}`);
+	await hidden.getByText('Change', { exact: true }).click();
+	await hidden
+		.getByLabel('Your comment (Markdown)')
+		.fill('Check the front caliper bolts are torqued to spec before every run.');
+	await hidden.getByRole('button', { name: 'Save the change' }).click();
+	await expect(hidden).toContainText('torqued to spec');
+	await hidden.getByRole('button', { name: 'Ask for another look' }).click();
+	await expect(hidden).toContainText('You asked for another look');
+
+	// The moderator puts it back.
+	await m.goto('/review');
+	card = caseCard(m, title);
+	await expect(card).toContainText('asks for another look');
+	await card.getByRole('button', { name: 'Put back' }).click();
+	await expect(card).toHaveCount(0);
+	await r.goto(`/builds/${build.id}?after=restore`);
+	await expect(r.locator(`#comment-${commentId}`)).toContainText('torqued to spec');
+
+	// The log holds the four steps in the order they happened.
+	await m.goto(`/review/log?itemType=comment&itemId=${commentId}&order=oldest`);
+	const actions = await m
+		.getByTestId('log-row')
+		.locator('td[data-action]')
+		.evaluateAll((tds) => tds.map((td) => td.getAttribute('data-action')));
+	expect(actions).toEqual(['triage', 'hide', 'second-look', 'restore']);
+});
