@@ -35,7 +35,19 @@ export const LOG_LABEL: Record<string, string> = {
 	suspend: 'Suspended the author',
 	'second-look': 'Author asked for another look',
 	'lift-suspension': 'Lifted a suspension',
-	'change-role': 'Changed a role'
+	'change-role': 'Changed a role',
+	'verify-shop': 'Verified a shop',
+	'unverify-shop': 'Withdrew a shop’s verification',
+	'link-request': 'Shop asked to be named on a build',
+	'link-approve': 'Owner approved a shop link',
+	'link-decline': 'Owner declined a shop link',
+	'link-remove': 'Owner removed a shop link',
+	'handover-offer': 'Shop offered a build to a customer',
+	'handover-withdraw': 'Shop withdrew a build offer',
+	'handover-accept': 'Customer took over a build',
+	'staff-invite': 'Shop invited staff',
+	'staff-remove': 'Shop removed staff',
+	'account-delete': 'Member deleted their account'
 };
 
 /** Unsafe reports from this many different members put the caution banner up on their own. */

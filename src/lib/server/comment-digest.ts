@@ -32,7 +32,7 @@ export async function flushCommentDigests(now: Date): Promise<number> {
 		});
 		// Mark first: a relay failure then costs one digest, never a storm of repeats.
 		await Comment.update({ notifiedAt: now }, { where: { id: pending.map((c) => c.id) } });
-		const owner = b && (await User.findByPk(b.ownerId));
+		const owner = b?.ownerId ? await User.findByPk(b.ownerId) : null;
 		const worth = pending.filter((c) => !c.deletedAt && c.moderation === 'visible');
 		if (!b || !owner || !owner.mailComments || !worth.length) continue;
 		const setupIds = [...new Set(worth.map((c) => c.setupId).filter((x): x is number => !!x))];

@@ -12,9 +12,13 @@ const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
  * passes for reading (GET) and gets 403 with the reason for anything that changes data, so no
  * route can forget the suspension.
  */
-export function requireUser(event: RequestEvent): CurrentUser {
+export function requireUser(
+	event: RequestEvent,
+	opts: { evenSuspended?: boolean } = {}
+): CurrentUser {
 	const user = event.locals.user;
-	if (user?.suspension && !READS.has(event.request.method))
+	// evenSuspended: only for leaving (deleting one's own account), never for posting.
+	if (user?.suspension && !opts.evenSuspended && !READS.has(event.request.method))
 		refuse(event, 403, suspensionMessage(user.suspension));
 	if (user) return user;
 	if (isApi(event)) refuse(event, 401, 'Sign in first.');

@@ -46,13 +46,14 @@ export function compose(opts: {
 	to: string;
 	subject: string;
 	paragraphs: string[];
-	action?: { label: string; url: string };
+	action?: { label: string; url: string } | { label: string; url: string }[];
 	footer?: string;
 	unsubscribeUrl?: string;
 }): Letter {
+	const actions = opts.action ? [opts.action].flat() : [];
 	const text = [
 		...opts.paragraphs,
-		...(opts.action ? [`${opts.action.label}: ${opts.action.url}`] : []),
+		...actions.map((a) => `${a.label}: ${a.url}`),
 		...(opts.footer ? [opts.footer] : []),
 		...(opts.unsubscribeUrl ? [`Stop these mails: ${opts.unsubscribeUrl}`] : []),
 		'— Squishline'
@@ -60,7 +61,7 @@ export function compose(opts: {
 	const p = (t: string) => `<p>${esc(t).replace(/\n/g, '<br>')}</p>`;
 	const html = `<div style="font-family:sans-serif;color:#2a2926;max-width:32rem">
 ${opts.paragraphs.map(p).join('\n')}
-${opts.action ? `<p><a href="${esc(opts.action.url)}" style="color:#a8471f;font-weight:600">${esc(opts.action.label)}</a></p>` : ''}
+${actions.map((a) => `<p><a href="${esc(a.url)}" style="color:#a8471f;font-weight:600">${esc(a.label)}</a></p>`).join('\n')}
 ${opts.footer ? `<p style="font-size:13px;color:#55524b">${esc(opts.footer)}</p>` : ''}
 ${opts.unsubscribeUrl ? `<p style="font-size:12px;color:#55524b"><a href="${esc(opts.unsubscribeUrl)}" style="color:#55524b">Stop these mails</a></p>` : ''}
 <p>— Squishline</p></div>`;

@@ -1,13 +1,19 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { transferRefSchema } from '$lib/schemas/shops';
+import { clock } from '$lib/server/clock';
 import * as builds from '$lib/server/db/builds';
 import { requireUser } from '$lib/server/guard';
+import { parseForm } from '$lib/server/plain-form';
 import { unitsFor } from '$lib/server/sheets/units';
-import type { PageServerLoad } from './$types';
+import { acceptHandover, handoversFor } from '$lib/server/shops/transfers';
+import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const me = requireUser(event);
-	const rows = await builds.listBench(me.id);
+	const [rows, handovers] = await Promise.all([builds.listBench(me.id), handoversFor(me)]);
 	return {
 		units: unitsFor(event),
+		handovers,
 		builds: rows.map((b) => ({
 			id: b.id,
 			title: b.title,
@@ -21,4 +27,15 @@ export const load: PageServerLoad = async (event) => {
 			runCount: b.runCount
 		}))
 	};
+};
+
+export const actions: Actions = {
+	acceptHandover: async (event) => {
+		const me = requireUser(event);
+		const form = await parseForm(event.request, transferRefSchema);
+		if (!form.ok) return fail(400, { handover: { message: form.message } });
+		const r = await acceptHandover(me, { transferId: form.data.transferId }, clock());
+		if (!r.ok) return fail(409, { handover: { message: 'That offer is no longer open.' } });
+		redirect(303, `/builds/${r.handover.buildId}`);
+	}
 };

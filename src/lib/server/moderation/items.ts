@@ -72,7 +72,21 @@ export async function describeItem(ref: ItemRef): Promise<ItemInfo | null> {
 			open: plainBuild(b) && c.moderation === 'visible' && !c.deletedAt
 		};
 	}
-	// Shop pages join the desk with the shops themselves.
+	if (ref.type === 'shop') {
+		const shop = await models().Shop.findByPk(ref.id);
+		if (!shop) return null;
+		return {
+			ref,
+			authorId: shop.ownerId,
+			buildId: null,
+			title: `shop page “${shop.name}”`,
+			text: [shop.services, shop.openingNote].filter(Boolean).join('\n\n'),
+			href: `/shops/${shop.id}`,
+			hidden: shop.moderation === 'hidden',
+			hiddenReason: shop.hiddenReason,
+			open: shop.moderation === 'visible'
+		};
+	}
 	return null;
 }
 
@@ -96,4 +110,5 @@ export async function setHidden(ref: ItemRef, reason: string | null): Promise<vo
 	if (ref.type === 'build') await Build.update(patch, where);
 	else if (ref.type === 'setup') await Setup.update(patch, where);
 	else if (ref.type === 'comment') await Comment.update(patch, where);
+	else if (ref.type === 'shop') await models().Shop.update(patch, where);
 }

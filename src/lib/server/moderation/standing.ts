@@ -7,7 +7,7 @@ import { cautionsFor, readCase } from './cases';
  * banner, and whether the author may still ask for another look at a hidden build or setup.
  */
 export async function pageStanding(
-	build: { id: number; ownerId: string; moderation: string },
+	build: { id: number; ownerId: string | null; moderation: string },
 	setupIds: number[],
 	me: CurrentUser | null
 ) {

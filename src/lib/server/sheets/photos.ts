@@ -16,6 +16,19 @@ export class PhotoError extends Error {
 	}
 }
 
+/** The upload rules shared by build photos and shop logos: size, then the type read from the bytes. */
+export async function checkImage(bytes: Uint8Array): Promise<string> {
+	if (bytes.byteLength > PHOTO_MAX_BYTES)
+		throw new PhotoError(413, 'That image is over 15 MB. Export it smaller and try again.');
+	if (bytes.byteLength === 0) throw new PhotoError(422, 'The file is empty.');
+	const meta = await sharp(bytes)
+		.metadata()
+		.catch(() => null);
+	if (!meta?.format || !FORMATS.has(meta.format))
+		throw new PhotoError(415, 'That file is not a JPEG, PNG, WebP or HEIC image.');
+	return meta.format;
+}
+
 /**
  * Stores a photo: the type is read from the bytes, the image is turned upright from its
  * orientation tag and re-encoded without any metadata (phone photos carry the garage's GPS
@@ -27,16 +40,9 @@ export async function addPhoto(
 	opts: { caption?: string; setupId?: number | null } = {}
 ) {
 	const { Photo } = models();
-	if (bytes.byteLength > PHOTO_MAX_BYTES)
-		throw new PhotoError(413, 'That photo is over 15 MB. Export it smaller and try again.');
-	if (bytes.byteLength === 0) throw new PhotoError(422, 'The file is empty.');
 	if ((await Photo.count({ where: { buildId } })) >= PHOTO_MAX_COUNT)
 		throw new PhotoError(409, `A build holds at most ${PHOTO_MAX_COUNT} photos. Delete one first.`);
-	const meta = await sharp(bytes)
-		.metadata()
-		.catch(() => null);
-	if (!meta?.format || !FORMATS.has(meta.format))
-		throw new PhotoError(415, 'That file is not a JPEG, PNG, WebP or HEIC image.');
+	const format = await checkImage(bytes);
 	let display: { data: Buffer; info: { width: number; height: number } };
 	let thumb: Buffer;
 	try {
@@ -75,7 +81,7 @@ export async function addPhoto(
 			...keys,
 			width: display.info.width,
 			height: display.info.height,
-			sourceFormat: meta.format
+			sourceFormat: format
 		});
 	} catch (e) {
 		await deleteObjects(written).catch(() => undefined);

@@ -15,7 +15,7 @@ export async function buildView(b: Build, units: Units) {
 		setups.listForBuild(b.id),
 		runs.listForBuild(b.id),
 		parts.listForBuild(b.id),
-		users.read(b.ownerId),
+		b.ownerId ? users.read(b.ownerId) : null,
 		listPhotos(b.id)
 	]);
 	const stock = b.stockSpeedKmh;
@@ -70,7 +70,7 @@ export async function buildView(b: Build, units: Units) {
 			id: b.id,
 			title: b.title,
 			ownerId: b.ownerId,
-			ownerName: owner?.name ?? 'a member',
+			ownerName: owner?.name ?? (b.ownerId ? 'a member' : 'a former member'),
 			storyHtml: renderMarkdown(b.story),
 			chassis: b.chassis,
 			engineFamily: b.engineFamily,

@@ -19,6 +19,9 @@ import { requireUser } from '$lib/server/guard';
 import { askSecondLook } from '$lib/server/moderation/desk';
 import { pageStanding } from '$lib/server/moderation/standing';
 import { parseForm } from '$lib/server/plain-form';
+import { decideLink, pendingLinks, shownLinks, unlink } from '$lib/server/shops/links';
+import { linkRefSchema } from '$lib/schemas/shops';
+import { z } from 'zod';
 import { idParam, readBuild } from '$lib/server/sheets/access';
 import { unitsFor } from '$lib/server/sheets/units';
 import { buildView } from '$lib/server/sheets/view';
@@ -32,10 +35,13 @@ export const load: PageServerLoad = async (event) => {
 	const link = new URL(`/builds/${build.id}`, env().ORIGIN).toString();
 	// A small QR code for the printed sheet, so a paper copy leads back to the live one.
 	const qr = await QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' });
-	const [view, steps, comments] = await Promise.all([
+	const mine = me !== null && me.id === build.ownerId;
+	const [view, steps, comments, shops, pendingShops] = await Promise.all([
 		buildView(build, units),
 		stepsOf(build.id),
-		listComments(build, me)
+		listComments(build, me),
+		shownLinks(build.id),
+		mine ? pendingLinks(build.id) : []
 	]);
 	const standing = await pageStanding(
 		build,
@@ -51,7 +57,21 @@ export const load: PageServerLoad = async (event) => {
 	if (!standing.seesHidden) view.setups = view.setups.filter((s) => s.moderation !== 'hidden');
 	const canTalk =
 		build.publication === 'published' && build.moderation === 'visible' && !me?.suspension;
-	return { units, canEdit, link, qr, steps, comments, standing, canTalk, takenDown, ...view };
+	return {
+		units,
+		canEdit,
+		link,
+		qr,
+		steps,
+		comments,
+		standing,
+		canTalk,
+		takenDown,
+		shops,
+		pendingShops,
+		mine,
+		...view
+	};
 };
 
 /** The build behind an action, readable by the member acting. */
@@ -63,7 +83,24 @@ async function target(event: RequestEvent) {
 
 const back = (buildId: number, anchor: string) => redirect(303, `/builds/${buildId}#${anchor}`);
 
+const decisionSchema = linkRefSchema.extend({ decision: z.enum(['approve', 'decline']) });
+
 export const actions: Actions = {
+	decideLink: async (event) => {
+		const { me, build } = await target(event);
+		const form = await parseForm(event.request, decisionSchema);
+		if (!form.ok) return fail(400, { shops: { message: form.message } });
+		const r = await decideLink({ me, linkId: form.data.linkId }, form.data.decision, clock());
+		if (!r.ok) return fail(409, { shops: { message: 'That request is already answered.' } });
+		back(build.id, 'shops');
+	},
+	unlink: async (event) => {
+		const { me, build } = await target(event);
+		const form = await parseForm(event.request, linkRefSchema);
+		if (!form.ok) return fail(400, { shops: { message: form.message } });
+		await unlink(me, form.data.linkId, clock());
+		back(build.id, 'shops');
+	},
 	comment: async (event) => {
 		const { me, build } = await target(event);
 		const form = await parseForm(event.request, commentSchema);

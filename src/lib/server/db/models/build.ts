@@ -11,7 +11,8 @@ import type { User } from './user';
 
 export class Build extends Model<InferAttributes<Build>, InferCreationAttributes<Build>> {
 	declare id: CreationOptional<number>;
-	declare ownerId: string;
+	/** NULL once the owner deleted their account and chose to keep the build, anonymised. */
+	declare ownerId: string | null;
 	declare title: string;
 	declare story: CreationOptional<string>;
 	declare chassis: CreationOptional<string>;
@@ -48,7 +49,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 		Build.init(
 			{
 				id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-				ownerId: { type: DataTypes.UUID, allowNull: false },
+				ownerId: { type: DataTypes.UUID, allowNull: true },
 				title: { type: DataTypes.STRING(120), allowNull: false },
 				story: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
 				chassis: str(),

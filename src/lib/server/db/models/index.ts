@@ -10,11 +10,17 @@ import { Part } from './part';
 import { Photo } from './photo';
 import { Run } from './run';
 import { Setup } from './setup';
+import { BuildTransfer, Shop, ShopLink, ShopMessage, ShopStaff } from './shop';
 import { User } from './user';
 
 export {
 	Account,
 	Build,
+	BuildTransfer,
+	Shop,
+	ShopLink,
+	ShopMessage,
+	ShopStaff,
 	Comment,
 	Flag,
 	LogEntry,
@@ -51,6 +57,13 @@ export function models() {
 		Flag.setup(sequelize);
 		ReviewCase.setup(sequelize);
 		LogEntry.setup(sequelize);
+		Shop.setup(sequelize);
+		ShopStaff.setup(sequelize);
+		ShopLink.setup(sequelize);
+		BuildTransfer.setup(sequelize);
+		ShopMessage.setup(sequelize);
+		ShopLink.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
+		ShopMessage.belongsTo(User, { foreignKey: 'senderId', as: 'sender' });
 		Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 		Build.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
 		Build.hasMany(Setup, { foreignKey: 'buildId', as: 'setups' });
@@ -76,6 +89,11 @@ export function models() {
 		Report,
 		Flag,
 		ReviewCase,
-		LogEntry
+		LogEntry,
+		Shop,
+		ShopStaff,
+		ShopLink,
+		BuildTransfer,
+		ShopMessage
 	};
 }

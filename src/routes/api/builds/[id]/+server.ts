@@ -4,8 +4,8 @@ import * as builds from '$lib/server/db/builds';
 import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
 import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
 import { exportBuild } from '$lib/server/sheets/export';
-import { removeBuildPhotos } from '$lib/server/sheets/photos';
 import { refreshListing } from '$lib/server/sheets/recompute';
+import { destroyBuild } from '$lib/server/sheets/remove';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 
@@ -37,8 +37,7 @@ export const PATCH: RequestHandler = api(async (event) => {
 
 export const DELETE: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
-	await removeBuildPhotos(build.id);
-	await builds.destroy(build.id);
+	await destroyBuild(build.id);
 	return noContent();
 });
 

@@ -11,12 +11,12 @@ import {
 	addPhoto,
 	listPhotos,
 	PhotoError,
-	removeBuildPhotos,
 	removePhoto,
 	reorderPhotos,
 	updatePhoto
 } from '$lib/server/sheets/photos';
 import { refreshListing } from '$lib/server/sheets/recompute';
+import { destroyBuild } from '$lib/server/sheets/remove';
 import { addPart, publishProblems, removePart, setPublication } from '$lib/server/sheets/service';
 import { unitsFor } from '$lib/server/sheets/units';
 import { BUILD_FIELDS, PART_FIELDS } from '$lib/sheet/fields';
@@ -164,8 +164,7 @@ export const actions: Actions = {
 	},
 	destroy: async (event) => {
 		const { build } = await mine(event);
-		await removeBuildPhotos(build.id);
-		await builds.destroy(build.id);
+		await destroyBuild(build.id);
 		redirect(303, '/bench');
 	}
 };

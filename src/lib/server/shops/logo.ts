@@ -1,0 +1,36 @@
+import { randomUUID } from 'node:crypto';
+import sharp from 'sharp';
+import type { Shop } from '../db/models';
+import { checkImage, PhotoError } from '../sheets/photos';
+import { deleteObjects, putObject } from '../storage';
+
+/**
+ * A shop's logo under the same rules as build photos (15 MB, JPEG, PNG, WebP or HEIC read from
+ * the bytes, turned upright, re-encoded without metadata), square-fitted to 320 px. The old
+ * object goes once the new one is stored.
+ */
+export async function setLogo(shop: Shop, bytes: Uint8Array): Promise<void> {
+	await checkImage(bytes);
+	let data: Buffer;
+	try {
+		data = await sharp(bytes, { failOn: 'error' })
+			.rotate()
+			.resize(320, 320, { fit: 'inside', withoutEnlargement: true })
+			.flatten({ background: '#fbf8f1' })
+			.jpeg({ quality: 85, mozjpeg: true })
+			.toBuffer();
+	} catch {
+		throw new PhotoError(415, 'We could not read that image.');
+	}
+	const key = `shops/${shop.id}/logo-${randomUUID()}.jpg`;
+	await putObject(key, data, 'image/jpeg');
+	const old = shop.logoKey;
+	await shop.update({ logoKey: key });
+	if (old) await deleteObjects([old]).catch(() => undefined);
+}
+
+export async function removeLogo(shop: Shop): Promise<void> {
+	const old = shop.logoKey;
+	await shop.update({ logoKey: null });
+	if (old) await deleteObjects([old]);
+}

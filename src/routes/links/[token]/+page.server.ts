@@ -1,0 +1,19 @@
+import { fail } from '@sveltejs/kit';
+import { clock } from '$lib/server/clock';
+import { decideLink, inspectLinkToken } from '$lib/server/shops/links';
+import type { Actions, PageServerLoad } from './$types';
+
+// The link in the owner's mail stands for the owner, so no sign-in is needed. Opening it only
+// shows the question; the answer takes a button press, so mail scanners cannot spend it.
+export const load: PageServerLoad = async ({ params }) => {
+	const check = await inspectLinkToken(params.token, clock());
+	return { check };
+};
+
+export const actions: Actions = {
+	default: async ({ params }) => {
+		const r = await decideLink({ token: params.token }, null, clock());
+		if (!r.ok) return fail(400, { problem: r.problem });
+		return { done: r.link };
+	}
+};

@@ -1,0 +1,35 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { accountDeleteSchema } from '$lib/schemas/shops';
+import { deleteAccount } from '$lib/server/account-deletion';
+import { clock } from '$lib/server/clock';
+import * as builds from '$lib/server/db/builds';
+import { models } from '$lib/server/db/models';
+import { requireUser } from '$lib/server/guard';
+import { parseForm } from '$lib/server/plain-form';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const me = requireUser(event);
+	const own = await builds.listBench(me.id);
+	const shop = await models().Shop.findOne({ where: { ownerId: me.id } });
+	return {
+		email: me.email,
+		builds: own.length,
+		published: own.filter((b) => b.publication === 'published').length,
+		shopName: shop?.name ?? null
+	};
+};
+
+export const actions: Actions = {
+	// A suspended member may still leave: deleting is not posting.
+	default: async (event) => {
+		const me = requireUser(event, { evenSuspended: true });
+		const form = await parseForm(event.request, accountDeleteSchema);
+		if (!form.ok) return fail(400, { values: form.values, message: form.message });
+		await deleteAccount(me, form.data.mode, clock());
+		// The session cookie names Auth.js uses over plain HTTP and over HTTPS.
+		for (const name of ['authjs.session-token', '__Secure-authjs.session-token'])
+			event.cookies.delete(name, { path: '/' });
+		redirect(303, '/?account=deleted');
+	}
+};

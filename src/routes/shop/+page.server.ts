@@ -1,0 +1,172 @@
+import { error, fail, isHttpError, redirect } from '@sveltejs/kit';
+import { roleAllows } from '$lib/roles';
+import {
+	linkRequestSchema,
+	replySchema,
+	shopSchema,
+	staffInviteSchema,
+	staffRemoveSchema,
+	transferRefSchema,
+	transferSchema
+} from '$lib/schemas/shops';
+import type { CurrentUser } from '$lib/server/auth/current-user';
+import { clock } from '$lib/server/clock';
+import * as builds from '$lib/server/db/builds';
+import { requireUser } from '$lib/server/guard';
+import { parseForm } from '$lib/server/plain-form';
+import { PhotoError } from '$lib/server/sheets/photos';
+import { linksOfShop, requestLink } from '$lib/server/shops/links';
+import { removeLogo, setLogo } from '$lib/server/shops/logo';
+import { messagesOf, replyToMessage } from '$lib/server/shops/messages';
+import { requireOwnShop, requireShop, saveShop, shopOf } from '$lib/server/shops/pages';
+import { inviteStaff, removeStaff, staffOf } from '$lib/server/shops/staff';
+import { handoversOfShop, offerHandover, withdrawHandover } from '$lib/server/shops/transfers';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
+
+/** Who may open the shop desk: shop accounts (to create their page) and accepted staff. */
+async function deskUser(event: RequestEvent) {
+	const me = requireUser(event);
+	const shop = await shopOf(me);
+	if (!shop && !roleAllows(me.role, 'shop'))
+		error(403, 'The shop desk is for shop accounts and their staff.');
+	return { me, shop };
+}
+
+const done = (anchor: string) => redirect(303, `/shop#${anchor}`);
+
+/** A refusal from the shop rules (409 already asked, 404 no such build) shown beside the form. */
+async function kept<T>(slot: string, values: Record<string, string>, step: () => Promise<T>) {
+	try {
+		await step();
+		return null;
+	} catch (e) {
+		if (isHttpError(e) && e.status < 500)
+			return fail(e.status, { [slot]: { values, message: e.body.message } });
+		throw e;
+	}
+}
+
+export const load: PageServerLoad = async (event) => {
+	const { me, shop } = await deskUser(event);
+	if (!shop) return { shop: null, owner: true };
+	const [staff, links, handovers, messages, own] = await Promise.all([
+		staffOf(shop.id),
+		linksOfShop(shop.id),
+		handoversOfShop(shop.id),
+		messagesOf(shop.id),
+		builds.listBench(shop.ownerId)
+	]);
+	return {
+		shop: {
+			id: shop.id,
+			name: shop.name,
+			region: shop.region,
+			services: shop.services,
+			openingNote: shop.openingNote,
+			logo: shop.logoKey !== null,
+			verified: shop.verifiedAt !== null
+		},
+		owner: shop.ownerId === me.id,
+		staff,
+		links,
+		handovers,
+		messages,
+		shopBuilds: own.map((b) => ({ id: b.id, title: b.title, publication: b.publication }))
+	};
+};
+
+async function acting(
+	event: RequestEvent
+): Promise<{ me: CurrentUser; shop: Awaited<ReturnType<typeof requireShop>> }> {
+	const me = requireUser(event);
+	return { me, shop: await requireShop(me) };
+}
+
+export const actions: Actions = {
+	save: async (event) => {
+		const me = requireUser(event);
+		const form = await parseForm(event.request, shopSchema);
+		if (!form.ok) return fail(400, { page: { values: form.values, message: form.message } });
+		await saveShop(me, form.data);
+		done('page');
+	},
+	logo: async (event) => {
+		const me = requireUser(event);
+		const shop = await requireOwnShop(me);
+		const file = (await event.request.formData()).get('logo');
+		if (!(file instanceof File) || file.size === 0)
+			return fail(400, { logo: { message: 'Choose an image file first.' } });
+		try {
+			await setLogo(shop, new Uint8Array(await file.arrayBuffer()));
+		} catch (e) {
+			if (e instanceof PhotoError) return fail(e.status, { logo: { message: e.message } });
+			throw e;
+		}
+		done('page');
+	},
+	removeLogo: async (event) => {
+		const me = requireUser(event);
+		await removeLogo(await requireOwnShop(me));
+		done('page');
+	},
+	invite: async (event) => {
+		const me = requireUser(event);
+		const shop = await requireOwnShop(me);
+		const form = await parseForm(event.request, staffInviteSchema);
+		if (!form.ok) return fail(400, { staff: { values: form.values, message: form.message } });
+		const refused = await kept('staff', form.values, () =>
+			inviteStaff(me, shop, form.data.email, clock())
+		);
+		if (refused) return refused;
+		return { staff: { values: {}, message: `Invitation mailed to ${form.data.email}.` } };
+	},
+	removeStaff: async (event) => {
+		const me = requireUser(event);
+		const shop = await requireOwnShop(me);
+		const form = await parseForm(event.request, staffRemoveSchema);
+		if (!form.ok) return fail(400, { staff: { values: {}, message: form.message } });
+		await removeStaff(me, shop, form.data.staffId, clock());
+		done('staff');
+	},
+	requestLink: async (event) => {
+		const { me, shop } = await acting(event);
+		const form = await parseForm(event.request, linkRequestSchema);
+		if (!form.ok) return fail(400, { link: { values: form.values, message: form.message } });
+		const refused = await kept('link', form.values, () =>
+			requestLink(me, shop, form.data, clock())
+		);
+		if (refused) return refused;
+		done('links');
+	},
+	offerHandover: async (event) => {
+		const { me, shop } = await acting(event);
+		const form = await parseForm(event.request, transferSchema);
+		if (!form.ok) return fail(400, { handover: { values: form.values, message: form.message } });
+		const refused = await kept('handover', form.values, () =>
+			offerHandover(me, shop, form.data, clock())
+		);
+		if (refused) return refused;
+		done('handovers');
+	},
+	withdrawHandover: async (event) => {
+		const { me, shop } = await acting(event);
+		const form = await parseForm(event.request, transferRefSchema);
+		if (!form.ok) return fail(400, { handover: { values: {}, message: form.message } });
+		await withdrawHandover(me, shop, form.data.transferId, clock());
+		done('handovers');
+	},
+	reply: async (event) => {
+		const { me, shop } = await acting(event);
+		const form = await parseForm(event.request, replySchema);
+		if (!form.ok)
+			return fail(400, {
+				reply: {
+					id: Number(form.values.messageId) || 0,
+					values: form.values,
+					message: form.message
+				}
+			});
+		await replyToMessage(me, shop, form.data.messageId, form.data.reply, clock());
+		done('messages');
+	}
+};

@@ -1,0 +1,20 @@
+import { error } from '@sveltejs/kit';
+import { viewShop } from '$lib/server/shops/pages';
+import { getObject } from '$lib/server/storage';
+import type { RequestHandler } from './$types';
+
+// Served through the app so a page the desk took down takes its logo with it.
+export const GET: RequestHandler = async (event) => {
+	const id = Number(event.params.id);
+	if (!Number.isInteger(id) || id <= 0) error(404, 'No such shop.');
+	const { shop } = await viewShop(id, event.locals.user);
+	const obj = shop.logoKey ? await getObject(shop.logoKey) : null;
+	if (!obj) error(404, 'No logo.');
+	return new Response(obj.body, {
+		headers: {
+			'content-type': obj.contentType,
+			'cache-control': 'public, max-age=600',
+			'x-content-type-options': 'nosniff'
+		}
+	});
+};
