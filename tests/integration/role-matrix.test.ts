@@ -15,6 +15,7 @@ import { publishedBuild } from '../support/moderation-fixtures';
 afterAll(async () => {
 	// The fixtures are published builds; take them away so they do not crowd other suites' lists.
 	if (people) await models().Build.destroy({ where: { ownerId: people.author.id } });
+	if (shopId) await models().Shop.destroy({ where: { id: shopId } });
 	await closeDb();
 });
 
@@ -41,9 +42,11 @@ async function discover() {
 	return found;
 }
 
-// Who may call it. owner: the build's owner (and an admin); author: whoever wrote the item, nobody
-// else (others get 404 so an item's existence is not confirmed); token: anyone with the link.
-type Policy = 'public' | 'member' | 'owner' | 'author' | 'moderator';
+// Who may call it. owner: the build's owner (and an admin); author: whoever wrote the item (or
+// owns the build a request is about), nobody else (others get 404 so an item's existence is not
+// confirmed); shop: whoever acts for the fixture shop; self: any signed-in account, even a
+// suspended one (leaving is not posting); admin: admins only.
+type Policy = 'public' | 'member' | 'owner' | 'author' | 'moderator' | 'admin' | 'shop' | 'self';
 type Spec = {
 	policy: Policy;
 	ok: number;
@@ -139,7 +142,38 @@ const MATRIX: Record<string, Spec> = {
 	'/verify/[token] ?/default': { policy: 'public', ok: 400 },
 	'/unsubscribe/[token] ?/default': { policy: 'public', ok: 400 },
 	// Auth.js answers sign-out with its own 302.
-	'/signout ?/default': { policy: 'public', ok: 302 }
+	'/signout ?/default': { policy: 'public', ok: 302 },
+
+	'/builds/[id] ?/decideLink': {
+		policy: 'author',
+		ok: 303,
+		with: (f) => ({ linkId: String(f.linkId), decision: 'decline' })
+	},
+	'/builds/[id] ?/unlink': {
+		policy: 'author',
+		ok: 303,
+		with: (f) => ({ linkId: String(f.shownLinkId) })
+	},
+	'/bench ?/acceptHandover': { policy: 'member', ok: 400 },
+	'/links/[token] ?/default': { policy: 'public', ok: 400 },
+	'/handover/[token] ?/default': { policy: 'member', ok: 400 },
+	'/staff/[token] ?/default': { policy: 'member', ok: 400 },
+	'/shops/[id] ?/contact': { policy: 'member', ok: 400 },
+	'/shop ?/save': { policy: 'shop', ok: 400 },
+	'/shop ?/logo': { policy: 'shop', ok: 400 },
+	'/shop ?/removeLogo': { policy: 'shop', ok: 303 },
+	'/shop ?/invite': { policy: 'shop', ok: 400 },
+	'/shop ?/removeStaff': { policy: 'shop', ok: 400 },
+	'/shop ?/requestLink': { policy: 'shop', ok: 400 },
+	'/shop ?/offerHandover': { policy: 'shop', ok: 400 },
+	'/shop ?/withdrawHandover': { policy: 'shop', ok: 400 },
+	'/shop ?/reply': { policy: 'shop', ok: 400 },
+	'/profile/delete ?/default': { policy: 'self', ok: 400 },
+	'/admin ?/role': { policy: 'admin', ok: 400 },
+	'/admin ?/suspend': { policy: 'admin', ok: 400 },
+	'/admin ?/lift': { policy: 'admin', ok: 400 },
+	'/admin/shops ?/verify': { policy: 'admin', ok: 400 },
+	'/admin/shops ?/unverify': { policy: 'admin', ok: 400 }
 };
 
 const ROLES = [
@@ -158,6 +192,7 @@ type Who = (typeof ROLES)[number];
 function expected(spec: Spec, who: Who, api: boolean): number {
 	if (spec.policy === 'public') return spec.ok;
 	if (who === 'anonymous') return api ? 401 : 303;
+	if (spec.policy === 'self') return spec.ok;
 	if (who === 'suspended member') return 403;
 	switch (spec.policy) {
 		case 'member':
@@ -168,6 +203,10 @@ function expected(spec: Spec, who: Who, api: boolean): number {
 			return who === 'author' ? spec.ok : 404;
 		case 'moderator':
 			return who === 'moderator' || who === 'admin' ? spec.ok : 403;
+		case 'admin':
+			return who === 'admin' ? spec.ok : 403;
+		case 'shop':
+			return who === 'shop' ? spec.ok : 403;
 	}
 }
 
@@ -178,9 +217,12 @@ type Fixture = {
 	partId: number;
 	photoId: number;
 	commentId: number;
+	linkId: number;
+	shownLinkId: number;
 };
 
 let people: Record<Exclude<Who, 'anonymous'>, CurrentUser>;
+let shopId: number;
 
 beforeAll(async () => {
 	const make = async (role: CurrentUser['role'], suspended = false) => {
@@ -197,6 +239,12 @@ beforeAll(async () => {
 		admin: await make('admin'),
 		'suspended member': await make('member', true)
 	};
+	const shop = await models().Shop.create({
+		ownerId: people.shop.id,
+		name: 'Matrix Motor Works',
+		services: 'Fixture services'
+	});
+	shopId = shop.id;
 });
 
 /** A fresh published build of the author's with one of everything, for each call. */
@@ -229,19 +277,29 @@ async function fixture(): Promise<Fixture> {
 		updatedAt: now,
 		notifiedAt: now
 	});
+	const link = (state: 'requested' | 'approved') =>
+		models().ShopLink.create({
+			buildId: build.id,
+			shopId,
+			kind: 'tuned',
+			state,
+			requestedBy: people.shop.id
+		});
 	return {
 		buildId: build.id,
 		setupId,
 		runId: run!.id,
 		partId: part!.id,
 		photoId: photo.id,
-		commentId: comment.id
+		commentId: comment.id,
+		linkId: (await link('requested')).id,
+		shownLinkId: (await link('approved')).id
 	};
 }
 
 function paramsFor(route: string, f: Fixture): Record<string, string> {
 	const all: Record<string, string> = {
-		id: String(f.buildId),
+		id: String(route.startsWith('/shops/') ? shopId : f.buildId),
 		setupId: String(f.setupId),
 		runId: String(f.runId),
 		partId: String(f.partId),
@@ -272,13 +330,14 @@ async function call(key: string, fn: Handler, who: Who, n: number): Promise<numb
 	const f = await fixture();
 	const api = !key.includes('?/');
 	const route = api ? key.split(' ')[1] : key.split(' ')[0];
-	const path = route.replace(/\[(\w+)\]/g, (_, p: string) => paramsFor(`[${p}]`, f)[p]);
+	const params = paramsFor(route, f);
+	const path = route.replace(/\[(\w+)\]/g, (_, p: string) => params[p]);
 	const user = who === 'anonymous' ? null : people[who];
 	const address = `10.7.${n % 250}.${Math.floor(n / 250) % 250}`;
 	const event = api
 		? fakeEvent({
 				user,
-				params: paramsFor(route, f),
+				params,
 				path,
 				address,
 				request: {
@@ -289,7 +348,7 @@ async function call(key: string, fn: Handler, who: Who, n: number): Promise<numb
 			})
 		: fakeEvent({
 				user,
-				params: paramsFor(route, f),
+				params,
 				path,
 				address,
 				form: spec.with?.(f) ?? {}

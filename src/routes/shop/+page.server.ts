@@ -85,6 +85,7 @@ async function acting(
 export const actions: Actions = {
 	save: async (event) => {
 		const me = requireUser(event);
+		if (!roleAllows(me.role, 'shop')) error(403, 'This needs the shop role.');
 		const form = await parseForm(event.request, shopSchema);
 		if (!form.ok) return fail(400, { page: { values: form.values, message: form.message } });
 		await saveShop(me, form.data);
