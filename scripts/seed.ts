@@ -5,6 +5,7 @@ import * as users from '../src/lib/server/db/users';
 import type { Role } from '../src/lib/roles';
 import { seedBuilds } from './demo/builds';
 import { seedOneChange } from './demo/one-change';
+import { seedShops } from './demo/shops';
 
 type Person = { email: string; name: string; role: Role; units?: 'metric' | 'imperial' };
 const demo = JSON.parse(
@@ -31,4 +32,5 @@ for (const p of demo.people) {
 const builds = await seedBuilds(owners);
 const steady = await seedOneChange(owners);
 console.log(`  ${builds + steady} demo build sheets added`);
+console.log(`  ${await seedShops()} demo shop pages added`);
 await closeDb();
