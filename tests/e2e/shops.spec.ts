@@ -116,3 +116,23 @@ test('a shop fills in a build for a customer and hands it over; the customer acc
 	await shop.page.goto('/bench');
 	await expect(shop.page.getByRole('link', { name: title })).toHaveCount(0);
 });
+
+test('a member deletes their account and keeps their published sheet without their name', async ({
+	page
+}) => {
+	const u = await makeUser();
+	const title = `Leaving build ${Date.now()}`;
+	const { build } = await publishedBuild(u.id, title);
+	await signInWithPassword(page, u.email, u.password, '/profile/delete');
+	await page.getByRole('button', { name: 'Delete my account' }).click();
+	// Nothing chosen, nothing typed: told what is missing, nothing deleted.
+	await expect(page.getByRole('alert')).toContainText('Choose what happens to your builds');
+	await page.getByLabel('Keep them without my name').check();
+	await page.getByLabel('Type “delete my account” to confirm').fill('delete my account');
+	await page.getByRole('button', { name: 'Delete my account' }).click();
+	await expect(page.getByRole('status')).toContainText('Your account is deleted');
+	await expect(page.getByRole('banner').getByRole('link', { name: 'Sign in' })).toBeVisible();
+	await page.goto(`/builds/${build.id}`);
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText(title);
+	await expect(page.getByText('by a former member')).toBeVisible();
+});

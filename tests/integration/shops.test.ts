@@ -247,9 +247,11 @@ describe('deleting an account', () => {
 		expect(kept?.authorId).toBeNull();
 	});
 
-	it('keeping the builds anonymised: the sheet and its photo stay, with no owner', async () => {
+	it('keeping the builds anonymised: the published sheet and its photo stay, with no owner; drafts go', async () => {
 		const a = await busyAccount();
+		const draft = await builds.create(a.owner.id, { title: 'Unfinished draft' });
 		await deleteAccount(a.owner, 'keep-anonymised', new Date());
+		expect(await builds.read(draft.id)).toBeNull();
 		const b = await builds.read(a.build.id);
 		expect(b?.ownerId).toBeNull();
 		expect(b?.publication).toBe('published');

@@ -8,16 +8,21 @@ import { destroyShop } from './shops/pages';
 export type DeleteMode = 'delete-builds' | 'keep-anonymised';
 
 /**
- * Deletes a member's account. Their builds go with it (photos' objects too), or stay readable
- * with no owner, as they chose. Comments stay as "a former member" so threads keep their sense;
+ * Deletes a member's account. Their builds go with it (photos' objects too), or the published
+ * ones stay readable with no owner, as they chose. Comments stay as "a former member" so threads keep their sense;
  * a shop page goes with its logo. Foreign keys remove sign-in records, tokens, reports, staff
  * places and messages; the review desk's cases forget the author. The moderation log keeps its
  * lines, which then name "a removed account".
  */
 export async function deleteAccount(me: CurrentUser, mode: DeleteMode, now: Date): Promise<void> {
 	const { Build, Shop, ReviewCase, User } = models();
-	const own = await Build.findAll({ where: { ownerId: me.id }, attributes: ['id'] });
-	if (mode === 'delete-builds') for (const b of own) await destroyBuild(b.id);
+	const own = await Build.findAll({
+		where: { ownerId: me.id },
+		attributes: ['id', 'publication']
+	});
+	// Drafts go in both modes: with no owner, nobody could ever see or finish them.
+	const kept = mode === 'keep-anonymised' ? own.filter((b) => b.publication === 'published') : [];
+	for (const b of own) if (!kept.includes(b)) await destroyBuild(b.id);
 	const shop = await Shop.findOne({ where: { ownerId: me.id } });
 	if (shop) await destroyShop(shop);
 	await ReviewCase.update({ authorId: null }, { where: { authorId: me.id } });
@@ -30,5 +35,5 @@ export async function deleteAccount(me: CurrentUser, mode: DeleteMode, now: Date
 	});
 	await User.destroy({ where: { id: me.id } });
 	// Kept builds now have no owner: their list rows are rewritten without the name.
-	if (mode === 'keep-anonymised') for (const b of own) await refreshListing(b.id);
+	for (const b of kept) await refreshListing(b.id);
 }

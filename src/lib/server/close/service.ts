@@ -202,7 +202,7 @@ export async function closeBuilds(
 				owner: string | null;
 			}>(
 				`SELECT s.id, s.position, s.change_note, s.best_run_method AS method, b.id AS build_id, b.title, b.parts_total_minor, b.currency, u.name AS owner
-				FROM setups s JOIN builds b ON b.id = s.build_id JOIN users u ON u.id = b.owner_id WHERE s.id IN (:ids)`,
+				FROM setups s JOIN builds b ON b.id = s.build_id LEFT JOIN users u ON u.id = b.owner_id WHERE s.id IN (:ids)`,
 				{ replacements: { ids }, type: QueryTypes.SELECT }
 			)
 		: [];
