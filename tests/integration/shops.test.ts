@@ -13,6 +13,14 @@ import { decideLink, requestLink, shownLinks } from '../../src/lib/server/shops/
 import { setLogo } from '../../src/lib/server/shops/logo';
 import { saveShop, summarise } from '../../src/lib/server/shops/pages';
 import { acceptHandover, offerHandover } from '../../src/lib/server/shops/transfers';
+import {
+	MessageLimited,
+	messagesOf,
+	replyToMessage,
+	sendMessage
+} from '../../src/lib/server/shops/messages';
+import { inviteStaff, joinStaff } from '../../src/lib/server/shops/staff';
+import { actsFor } from '../../src/lib/server/shops/pages';
 import { objectExists } from '../../src/lib/server/storage';
 import { asUser } from '../support/events';
 import { makeUser } from '../support/factories';
@@ -132,6 +140,58 @@ describe('handing a build to a customer', () => {
 		expect(credit?.state).toBe('approved');
 		expect(credit?.kind).toBe('built');
 		expect((await acceptHandover(customer, { token }, now)).ok).toBe(false);
+	});
+});
+
+describe('writing to a shop', () => {
+	it('hides the sender’s address from the shop until it replies through the app', async () => {
+		const { owner, shop } = await newShop('Quiet Counter');
+		const member = await person();
+		const now = new Date();
+		await sendMessage(member, shop, 'Can you port a 70 cc kit?', '10.6.0.1', now);
+		const inbox = await listMail(owner.email);
+		expect(inbox[0].subject).toContain('A message for Quiet Counter');
+		expect(inbox[0].text).toContain('Can you port a 70 cc kit?');
+		expect(inbox[0].text + inbox[0].html).not.toContain(member.email);
+		const [m] = await messagesOf(shop.id);
+		expect(m.fromEmail).toBeNull();
+
+		await replyToMessage(owner, shop, m.id, 'Yes, bring the cases on Saturday.', now);
+		const answer = (await listMail(member.email))[0];
+		expect(answer.text).toContain('Yes, bring the cases on Saturday.');
+		expect(answer.text).toContain(owner.email);
+		expect((await messagesOf(shop.id))[0].fromEmail).toBe(member.email);
+		await expect(replyToMessage(owner, shop, m.id, 'Again', now)).rejects.toMatchObject({
+			status: 409
+		});
+	});
+
+	it('limits messages per account, with the wait in words', async () => {
+		const { shop } = await newShop('Busy Counter');
+		const member = await person();
+		const send = (i: number) =>
+			sendMessage(member, shop, `Message ${i}`, `10.5.${i}.1`, new Date());
+		// messagesByAccount: 5 an hour (src/lib/server/auth/limits.ts).
+		for (let i = 0; i < 5; i++) await send(i);
+		await expect(send(5)).rejects.toBeInstanceOf(MessageLimited);
+		await expect(send(6)).rejects.toThrow(/Try again in/);
+	});
+});
+
+describe('shop staff', () => {
+	it('joins by the mailed link only as the invited address, once', async () => {
+		const { owner, shop } = await newShop('Staffed Works');
+		const invited = await person();
+		const other = await person();
+		const now = new Date();
+		await inviteStaff(owner, shop, invited.email, now);
+		const token = await mailedToken(invited.email, '/staff');
+		expect(await joinStaff(invited, forge(token), now)).toEqual({ ok: false, problem: 'forged' });
+		await expect(joinStaff(other, token, now)).rejects.toMatchObject({ status: 403 });
+		expect(await actsFor(invited, shop)).toBe(false);
+		expect(await joinStaff(invited, token, now)).toEqual({ ok: true, shopName: 'Staffed Works' });
+		expect(await actsFor(invited, shop)).toBe(true);
+		expect(await joinStaff(invited, token, now)).toEqual({ ok: false, problem: 'used' });
 	});
 });
 
