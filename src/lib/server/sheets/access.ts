@@ -54,3 +54,12 @@ export async function editRun(event: RequestEvent & { params: { id: string; runI
 	if (!run) error(404, 'No such run.');
 	return { build, run };
 }
+
+/**
+ * Whether the reader may see the parts of a build the review desk took down (a hidden setup):
+ * its owner, moderators and admins. Everyone else gets the build without them, in every format.
+ */
+export function seesTakenDown(event: RequestEvent, b: { ownerId: string | null }): boolean {
+	const me = event.locals.user;
+	return Boolean(me && (me.id === b.ownerId || roleAllows(me.role, 'moderator')));
+}

@@ -20,12 +20,18 @@ const compact = (o: Record<string, unknown>) =>
 const pickFields = (names: string[], o: Record<string, unknown>) =>
 	compact(Object.fromEntries(names.map((n) => [n, o[n]])));
 
-export async function exportBuild(b: Build): Promise<BuildSheetExport> {
-	const [setupRows, runRows, partRows] = await Promise.all([
+export async function exportBuild(
+	b: Build,
+	opts: { withTakenDown: boolean } = { withTakenDown: true }
+): Promise<BuildSheetExport> {
+	const [allSetups, runRows, partRows] = await Promise.all([
 		setups.listForBuild(b.id),
 		runs.listForBuild(b.id),
 		parts.listForBuild(b.id)
 	]);
+	const setupRows = opts.withTakenDown
+		? allSetups
+		: allSetups.filter((s) => s.moderation !== 'hidden');
 	const runNames = RUN_FIELDS.map((f) => f.name);
 	const index = new Map(setupRows.map((s, i) => [s.id, i]));
 	const doc = {

@@ -36,6 +36,8 @@ export async function loadColumns(pick: Pick, me: Reader) {
 	]);
 	const byBuild = new Map(builds.map((b) => [b.id, b]));
 	const runById = new Map(runs.map((r) => [r.id, r]));
+	const seesTakenDown = (b: { ownerId: string | null }) =>
+		Boolean(me && (me.id === b.ownerId || roleAllows(me.role, 'moderator')));
 	const visible = (id: number) => {
 		const b = byBuild.get(id);
 		if (!b) return false;
@@ -55,6 +57,8 @@ export async function loadColumns(pick: Pick, me: Reader) {
 	const columns: Column[] = [];
 	for (const s of order) {
 		if (!visible(s.buildId)) continue;
+		// A setup the desk took down is left out for everyone but its owner and the staff.
+		if (s.moderation === 'hidden' && !seesTakenDown(byBuild.get(s.buildId)!)) continue;
 		const b = byBuild.get(s.buildId)!;
 		const r = s.bestRunId ? runById.get(s.bestRunId) : undefined;
 		columns.push({

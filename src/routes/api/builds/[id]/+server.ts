@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
 import * as builds from '$lib/server/db/builds';
-import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
+import { editBuild, idParam, readBuild, seesTakenDown } from '$lib/server/sheets/access';
 import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
 import { exportBuild } from '$lib/server/sheets/export';
 import { refreshListing } from '$lib/server/sheets/recompute';
@@ -15,7 +15,7 @@ export const GET: RequestHandler = api(async (event) => {
 		id: build.id,
 		version: build.version,
 		publication: build.publication,
-		sheet: await exportBuild(build)
+		sheet: await exportBuild(build, { withTakenDown: seesTakenDown(event, build) })
 	});
 });
 

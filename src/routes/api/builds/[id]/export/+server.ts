@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
 import { api } from '$lib/server/api';
-import { idParam, readBuild } from '$lib/server/sheets/access';
+import { idParam, readBuild, seesTakenDown } from '$lib/server/sheets/access';
 import { exportBuild } from '$lib/server/sheets/export';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = api(async (event) => {
 	const { build } = await readBuild(event, idParam(event.params.id));
-	return json(await exportBuild(build), {
+	return json(await exportBuild(build, { withTakenDown: seesTakenDown(event, build) }), {
 		headers: { 'content-disposition': `attachment; filename="build-${build.id}.squishline.json"` }
 	});
 });

@@ -1,7 +1,7 @@
 import { api } from '$lib/server/api';
 import * as runs from '$lib/server/db/runs';
 import * as setups from '$lib/server/db/setups';
-import { idParam, readBuild } from '$lib/server/sheets/access';
+import { idParam, readBuild, seesTakenDown } from '$lib/server/sheets/access';
 import type { RequestHandler } from './$types';
 
 const cell = (v: unknown) => {
@@ -17,7 +17,10 @@ export const GET: RequestHandler = api(async (event) => {
 		setups.listForBuild(build.id),
 		runs.listForBuild(build.id)
 	]);
-	const byId = new Map(setupRows.map((s) => [s.id, s]));
+	const shown = seesTakenDown(event, build)
+		? setupRows
+		: setupRows.filter((s) => s.moderation !== 'hidden');
+	const byId = new Map(shown.map((s) => [s.id, s]));
 	const head = [
 		'run_date',
 		'speed_kmh',
@@ -41,34 +44,36 @@ export const GET: RequestHandler = api(async (event) => {
 		'roller_total_g',
 		'gearing_limit_kmh'
 	];
-	const lines = runRows.map((r) => {
-		const s = byId.get(r.setupId)!;
-		return [
-			r.runOn,
-			r.speedKmh,
-			r.method,
-			r.twoWay,
-			r.venue,
-			r.elevationM,
-			r.tempC,
-			r.humidityPct,
-			r.pressureKpa,
-			r.airDensity,
-			r.densityAltitudeM,
-			r.seaLevelJet,
-			s.position,
-			s.changeNote,
-			s.displacementCc,
-			s.exhaustType,
-			s.mainJet,
-			s.finalDriveRatio,
-			s.overallRatio,
-			s.rollerTotalG,
-			s.gearingLimitKmh
-		]
-			.map(cell)
-			.join(',');
-	});
+	const lines = runRows
+		.filter((r) => byId.has(r.setupId))
+		.map((r) => {
+			const s = byId.get(r.setupId)!;
+			return [
+				r.runOn,
+				r.speedKmh,
+				r.method,
+				r.twoWay,
+				r.venue,
+				r.elevationM,
+				r.tempC,
+				r.humidityPct,
+				r.pressureKpa,
+				r.airDensity,
+				r.densityAltitudeM,
+				r.seaLevelJet,
+				s.position,
+				s.changeNote,
+				s.displacementCc,
+				s.exhaustType,
+				s.mainJet,
+				s.finalDriveRatio,
+				s.overallRatio,
+				s.rollerTotalG,
+				s.gearingLimitKmh
+			]
+				.map(cell)
+				.join(',');
+		});
 	return new Response([head.join(','), ...lines].join('\r\n') + '\r\n', {
 		headers: {
 			'content-type': 'text/csv; charset=utf-8',
