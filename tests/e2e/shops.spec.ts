@@ -32,10 +32,10 @@ test('a shop asks to be named on a build, the owner approves by mail, the admin 
 	const title = `Shop link flow ${Date.now()}`;
 	const { build } = await publishedBuild(owner.id, title);
 
-	await shop.page.getByLabel('Build number').fill(String(build.id));
-	await shop.page.getByLabel('The shop').selectOption('tuned');
-	await shop.page.getByLabel('Note to the owner').fill('We jetted it for the hill climb.');
-	await shop.page.getByRole('button', { name: 'Ask the owner' }).click();
+	// From the build's own page, as the shop.
+	await shop.page.goto(`/builds/${build.id}`);
+	await shop.page.getByLabel(`What ${name} did`).selectOption('tuned');
+	await shop.page.getByRole('button', { name: 'Ask the owner to name us' }).click();
 	await expect(shop.page.getByRole('row', { name: new RegExp(title) })).toContainText(
 		'waiting for the owner'
 	);

@@ -20,6 +20,7 @@ import { askSecondLook } from '$lib/server/moderation/desk';
 import { pageStanding } from '$lib/server/moderation/standing';
 import { parseForm } from '$lib/server/plain-form';
 import { decideLink, pendingLinks, shownLinks, unlink } from '$lib/server/shops/links';
+import { shopOf } from '$lib/server/shops/pages';
 import { linkRefSchema } from '$lib/schemas/shops';
 import { z } from 'zod';
 import { idParam, readBuild } from '$lib/server/sheets/access';
@@ -36,13 +37,20 @@ export const load: PageServerLoad = async (event) => {
 	// A small QR code for the printed sheet, so a paper copy leads back to the live one.
 	const qr = await QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' });
 	const mine = me !== null && me.id === build.ownerId;
-	const [view, steps, comments, shops, pendingShops] = await Promise.all([
+	const [view, steps, comments, shops, pendingShops, myShop] = await Promise.all([
 		buildView(build, units),
 		stepsOf(build.id),
 		listComments(build, me),
 		shownLinks(build.id),
-		mine ? pendingLinks(build.id) : []
+		mine ? pendingLinks(build.id) : [],
+		me && !me.suspension ? shopOf(me) : null
 	]);
+	// A shop that acts here may ask to be named, unless it already is.
+	const canAskLink =
+		myShop !== null &&
+		build.publication === 'published' &&
+		build.moderation === 'visible' &&
+		!shops.some((l) => l.shopId === myShop.id);
 	const standing = await pageStanding(
 		build,
 		view.setups.map((s) => s.id),
@@ -70,6 +78,7 @@ export const load: PageServerLoad = async (event) => {
 		shops,
 		pendingShops,
 		mine,
+		askAs: canAskLink ? myShop!.name : null,
 		...view
 	};
 };
