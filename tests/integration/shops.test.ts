@@ -192,6 +192,18 @@ describe('shop staff', () => {
 		expect(await joinStaff(invited, token, now)).toEqual({ ok: true, shopName: 'Staffed Works' });
 		expect(await actsFor(invited, shop)).toBe(true);
 		expect(await joinStaff(invited, token, now)).toEqual({ ok: false, problem: 'used' });
+
+		// Staff hand over a sheet they filled in for the shop; an outsider's sheet cannot be offered.
+		const customer = await person();
+		const sheet = await builds.create(invited.id, { title: 'Filled in by staff' });
+		await offerHandover(invited, shop, { buildId: sheet.id, email: customer.email }, now);
+		const outsider = await builds.create(other.id, { title: 'Not the shop’s' });
+		await expect(
+			offerHandover(invited, shop, { buildId: outsider.id, email: customer.email }, now)
+		).rejects.toMatchObject({ status: 404 });
+		const accept = await mailedToken(customer.email, '/handover');
+		expect((await acceptHandover(customer, { token: accept }, now)).ok).toBe(true);
+		expect((await builds.read(sheet.id))!.ownerId).toBe(customer.id);
 	});
 });
 

@@ -56,6 +56,8 @@ export const load: PageServerLoad = async (event) => {
 		messagesOf(shop.id),
 		builds.listBench(shop.ownerId)
 	]);
+	// Staff hand over sheets they filled in themselves, as well as the owner's.
+	const staffOwn = shop.ownerId === me.id ? [] : await builds.listBench(me.id);
 	return {
 		shop: {
 			id: shop.id,
@@ -71,7 +73,11 @@ export const load: PageServerLoad = async (event) => {
 		links,
 		handovers,
 		messages,
-		shopBuilds: own.map((b) => ({ id: b.id, title: b.title, publication: b.publication }))
+		shopBuilds: [...own, ...staffOwn].map((b) => ({
+			id: b.id,
+			title: b.title,
+			publication: b.publication
+		}))
 	};
 };
 

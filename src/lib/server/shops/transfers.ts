@@ -34,8 +34,17 @@ async function view(id: number): Promise<HandoverView | null> {
 	};
 }
 
+/** Whose sheets a shop may hand over: its owner's and those of staff who joined. */
+async function handsOver(shop: Shop, ownerId: string | null): Promise<boolean> {
+	if (!ownerId) return false;
+	if (ownerId === shop.ownerId) return true;
+	const staff = await models().ShopStaff.count({ where: { shopId: shop.id, userId: ownerId } });
+	return staff > 0;
+}
+
 /**
- * A shop offers one of its own build sheets to a customer's address. One offer at a time per
+ * A shop offers one of its own build sheets (its owner's, or the offering staff member's) to a
+ * customer's address. One offer at a time per
  * build; the build stays the shop's until the customer accepts.
  */
 export async function offerHandover(
@@ -46,7 +55,9 @@ export async function offerHandover(
 ) {
 	const { BuildTransfer } = models();
 	const b = await builds.read(input.buildId);
-	if (!b || b.ownerId !== shop.ownerId) error(404, 'No such build sheet of your shop.');
+	const ours = b && (b.ownerId === shop.ownerId || b.ownerId === me.id);
+	if (!b || !ours || !(await handsOver(shop, b.ownerId)))
+		error(404, 'No such build sheet of your shop.');
 	const email = normaliseEmail(input.email);
 	const pending = await BuildTransfer.findOne({ where: { buildId: b.id, state: 'pending' } });
 	if (pending)
@@ -146,7 +157,9 @@ export async function acceptHandover(
 	if (t.toEmail !== normaliseEmail(me.email))
 		error(403, `This sheet was offered to ${t.toEmail}; sign in with that address to accept it.`);
 	const shop = await Shop.findByPk(t.shopId);
-	if (!shop) return { ok: false, problem: 'used' };
+	const from = await models().Build.findByPk(t.buildId, { attributes: ['ownerId'] });
+	if (!shop || !from || !(await handsOver(shop, from.ownerId)))
+		return { ok: false, problem: 'used' };
 	const moved = await db().transaction(async (transaction) => {
 		const [n] = await BuildTransfer.update(
 			{ state: 'accepted', decidedAt: now },
@@ -155,7 +168,7 @@ export async function acceptHandover(
 		if (n !== 1) return false;
 		await models().Build.update(
 			{ ownerId: me.id },
-			{ where: { id: t.buildId, ownerId: shop.ownerId }, transaction }
+			{ where: { id: t.buildId, ownerId: from.ownerId! }, transaction }
 		);
 		{
 			const named = await ShopLink.count({
