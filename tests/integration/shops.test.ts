@@ -20,7 +20,9 @@ import {
 	sendMessage
 } from '../../src/lib/server/shops/messages';
 import { inviteStaff, joinStaff } from '../../src/lib/server/shops/staff';
-import { actsFor } from '../../src/lib/server/shops/pages';
+import { actsFor, setVerified } from '../../src/lib/server/shops/pages';
+import { listBuilds } from '../../src/lib/server/db/build-list';
+import { buildListSchema } from '../../src/lib/schemas/build-list';
 import { objectExists } from '../../src/lib/server/storage';
 import { asUser } from '../support/events';
 import { makeUser } from '../support/factories';
@@ -94,6 +96,15 @@ describe('shop links: signed, single-use, one-day tokens', () => {
 
 		const summary = await summarise(shop.id);
 		expect(summary.builds).toBe(1);
+
+		// The list shows the stamp only once an admin verified the shop.
+		const stamped = async () =>
+			(
+				await listBuilds(buildListSchema.parse({ q: 'Link token fixture', limit: 50 }), 'metric')
+			).builds.find((x) => x.id === build.id)?.verifiedShop;
+		expect(await stamped()).toBe(false);
+		await setVerified(await person('admin'), shop.id, true, 'checked', now);
+		expect(await stamped()).toBe(true);
 	});
 
 	it('a token made for another purpose does not pass as a link decision', async () => {

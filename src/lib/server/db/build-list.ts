@@ -28,6 +28,8 @@ export type ListRow = {
 	exhaust: string | null;
 	elevationM: number | null;
 	photos: boolean;
+	/** Named (with the owner's agreement) by a shop an admin has verified. */
+	verifiedShop: boolean;
 };
 
 // Each order walks an index (id; best speed, id; parts total, id), so a page reads about its own
@@ -135,7 +137,11 @@ async function page(q: BuildListQuery, units: Units, text: string | null) {
 				`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
 				b.currency, b.setup_count, b.run_count, u.name AS owner,
 				b.rep_cc, b.rep_pipe, b.rep_elevation_m,
-				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos
+				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos,
+				EXISTS (SELECT 1 FROM shop_links sl JOIN shops sh ON sh.id = sl.shop_id
+					WHERE sl.build_id = b.id AND sl.state = 'approved' AND sh.verified_at IS NOT NULL
+					AND sh.moderation = 'visible') AS verified_shop,
+				b.owner_id IS NULL AS owner_gone
 			FROM builds b
 			LEFT JOIN users u ON u.id = b.owner_id
 			WHERE b.id IN (:ids)`,
@@ -159,7 +165,7 @@ function toRow(x: Record<string, unknown>): ListRow {
 	return {
 		id: Number(x.id),
 		title: String(x.title),
-		owner: (x.owner as string | null) ?? 'a member',
+		owner: Number(x.owner_gone) ? 'a former member' : ((x.owner as string | null) ?? 'a member'),
 		engineFamily: String(x.engine_family ?? ''),
 		bestSpeedKmh: n(x.best_speed_kmh),
 		stockSpeedKmh: n(x.stock_speed_kmh),
@@ -170,7 +176,8 @@ function toRow(x: Record<string, unknown>): ListRow {
 		displacementCc: n(x.rep_cc),
 		exhaust: (x.rep_pipe as string) || null,
 		elevationM: n(x.rep_elevation_m),
-		photos: Boolean(Number(x.photos))
+		photos: Boolean(Number(x.photos)),
+		verifiedShop: Boolean(Number(x.verified_shop))
 	};
 }
 
