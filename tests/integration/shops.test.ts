@@ -297,6 +297,24 @@ async function busyAccount() {
 }
 
 describe('deleting an account', () => {
+	it('is refused to the only admin, and nothing is removed', async () => {
+		const { User } = models();
+		const admins = await User.findAll({ where: { role: 'admin' } });
+		// Make this the only admin for the check, then give the others their role back.
+		const only = await person('admin');
+		await User.update({ role: 'member' }, { where: { id: admins.map((a) => a.id) } });
+		try {
+			await expect(deleteAccount(only, 'delete-builds', new Date())).rejects.toMatchObject({
+				status: 409
+			});
+			expect(await User.findByPk(only.id)).not.toBeNull();
+		} finally {
+			await User.update({ role: 'admin' }, { where: { id: admins.map((a) => a.id) } });
+		}
+		await deleteAccount(only, 'delete-builds', new Date());
+		expect(await User.findByPk(only.id)).toBeNull();
+	});
+
 	it('with its builds: no rows or objects are left behind', async () => {
 		const a = await busyAccount();
 		await deleteAccount(a.owner, 'delete-builds', new Date());

@@ -1,3 +1,4 @@
+import { error } from '@sveltejs/kit';
 import { models } from './db/models';
 import type { CurrentUser } from './auth/current-user';
 import * as log from './moderation/log';
@@ -16,6 +17,9 @@ export type DeleteMode = 'delete-builds' | 'keep-anonymised';
  */
 export async function deleteAccount(me: CurrentUser, mode: DeleteMode, now: Date): Promise<void> {
 	const { Build, Shop, ReviewCase, User } = models();
+	// Someone must be left to give roles and check shops.
+	if (me.role === 'admin' && (await User.count({ where: { role: 'admin' } })) <= 1)
+		error(409, 'You are the only admin. Make someone else an admin before you leave.');
 	const own = await Build.findAll({
 		where: { ownerId: me.id },
 		attributes: ['id', 'publication']

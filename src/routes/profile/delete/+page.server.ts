@@ -1,4 +1,4 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { fail, isHttpError, redirect } from '@sveltejs/kit';
 import { accountDeleteSchema } from '$lib/schemas/shops';
 import { deleteAccount } from '$lib/server/account-deletion';
 import { clock } from '$lib/server/clock';
@@ -26,7 +26,13 @@ export const actions: Actions = {
 		const me = requireUser(event, { evenSuspended: true });
 		const form = await parseForm(event.request, accountDeleteSchema);
 		if (!form.ok) return fail(400, { values: form.values, message: form.message });
-		await deleteAccount(me, form.data.mode, clock());
+		try {
+			await deleteAccount(me, form.data.mode, clock());
+		} catch (e) {
+			if (isHttpError(e) && e.status === 409)
+				return fail(409, { values: form.values, message: e.body.message });
+			throw e;
+		}
 		// The session cookie names Auth.js uses over plain HTTP and over HTTPS.
 		for (const name of ['authjs.session-token', '__Secure-authjs.session-token'])
 			event.cookies.delete(name, { path: '/' });
