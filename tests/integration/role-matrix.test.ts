@@ -334,25 +334,17 @@ async function call(key: string, fn: Handler, who: Who, n: number): Promise<numb
 	const path = route.replace(/\[(\w+)\]/g, (_, p: string) => params[p]);
 	const user = who === 'anonymous' ? null : people[who];
 	const address = `10.7.${n % 250}.${Math.floor(n / 250) % 250}`;
-	const event = api
-		? fakeEvent({
-				user,
-				params,
-				path,
-				address,
+	const fields = spec.with?.(f) ?? {};
+	const sent = api
+		? {
 				request: {
 					method: key.split(' ')[0],
-					body: JSON.stringify(spec.with?.(f) ?? {}),
+					body: JSON.stringify(fields),
 					headers: { 'content-type': 'application/json' }
 				}
-			})
-		: fakeEvent({
-				user,
-				params,
-				path,
-				address,
-				form: spec.with?.(f) ?? {}
-			});
+			}
+		: { form: fields };
+	const event = fakeEvent({ user, params, path, address, ...sent });
 	return statusOf(fn, event);
 }
 

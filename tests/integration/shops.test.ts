@@ -11,7 +11,8 @@ import { listMail } from '../../src/lib/server/outbox';
 import { addPhoto } from '../../src/lib/server/sheets/photos';
 import { decideLink, requestLink, shownLinks } from '../../src/lib/server/shops/links';
 import { setLogo } from '../../src/lib/server/shops/logo';
-import { saveShop, summarise } from '../../src/lib/server/shops/pages';
+import { linkedBuilds, saveShop } from '../../src/lib/server/shops/pages';
+import { summarise } from '../../src/lib/shops/summary';
 import { acceptHandover, offerHandover } from '../../src/lib/server/shops/transfers';
 import {
 	MessageLimited,
@@ -94,7 +95,7 @@ describe('shop links: signed, single-use, one-day tokens', () => {
 		expect(await decideLink({ token: approve }, null, now)).toEqual({ ok: false, problem: 'used' });
 		expect((await shownLinks(build.id)).map((x) => x.shopName)).toEqual([shop.name]);
 
-		const summary = await summarise(shop.id);
+		const summary = summarise(await linkedBuilds(shop.id));
 		expect(summary.builds).toBe(1);
 
 		// The list shows the stamp only once an admin verified the shop.

@@ -18,7 +18,7 @@ import { PhotoError } from '$lib/server/sheets/photos';
 import { linksOfShop, requestLink } from '$lib/server/shops/links';
 import { removeLogo, setLogo } from '$lib/server/shops/logo';
 import { messagesOf, replyToMessage } from '$lib/server/shops/messages';
-import { requireOwnShop, requireShop, saveShop, shopOf } from '$lib/server/shops/pages';
+import { requireOwnShop, requireShop, saveShop, shopOf, shopView } from '$lib/server/shops/pages';
 import { inviteStaff, removeStaff, staffOf } from '$lib/server/shops/staff';
 import { handoversOfShop, offerHandover, withdrawHandover } from '$lib/server/shops/transfers';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
@@ -59,15 +59,7 @@ export const load: PageServerLoad = async (event) => {
 	// Staff hand over sheets they filled in themselves, as well as the owner's.
 	const staffOwn = shop.ownerId === me.id ? [] : await builds.listBench(me.id);
 	return {
-		shop: {
-			id: shop.id,
-			name: shop.name,
-			region: shop.region,
-			services: shop.services,
-			openingNote: shop.openingNote,
-			logo: shop.logoKey !== null,
-			verified: shop.verifiedAt !== null
-		},
+		shop: shopView(shop),
 		owner: shop.ownerId === me.id,
 		staff,
 		links,

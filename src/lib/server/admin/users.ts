@@ -52,6 +52,7 @@ export async function listUsers(f: UserFilter, now: Date) {
 	return {
 		total: count,
 		page,
+		pageSize: USERS_PAGE,
 		rows: rows.map((u) => ({
 			id: u.id,
 			name: u.name,

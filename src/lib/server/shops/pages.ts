@@ -1,23 +1,14 @@
 import { error } from '@sveltejs/kit';
-import { Op } from 'sequelize';
-import { median } from 'simple-statistics';
 import type { z } from 'zod';
 import { roleAllows } from '../../roles';
 import type { shopSchema } from '../../schemas/shops';
 import type { CurrentUser } from '../auth/current-user';
+import type { LinkedBuild } from '../../shops/summary';
 import { models, type Shop } from '../db/models';
 import * as log from '../moderation/log';
 import { deleteObjects } from '../storage';
 
 export type ShopInput = z.output<typeof shopSchema>;
-
-/** Displacement classes for the shop summary, by the representative setup's cc. */
-export const CC_CLASSES = [
-	{ label: 'up to 50 cc', max: 50 },
-	{ label: '51–70 cc', max: 70 },
-	{ label: '71–90 cc', max: 90 },
-	{ label: 'over 90 cc', max: Infinity }
-] as const;
 
 export async function readShop(id: number): Promise<Shop | null> {
 	return models().Shop.findByPk(id);
@@ -72,20 +63,34 @@ export async function saveShop(me: CurrentUser, input: ShopInput): Promise<Shop>
 	return Shop.create({ ownerId: me.id, ...input });
 }
 
-export async function listShops(opts: { verifiedOnly?: boolean } = {}) {
-	const where = {
-		moderation: 'visible' as const,
-		...(opts.verifiedOnly ? { verifiedAt: { [Op.ne]: null } } : {})
-	};
-	return models().Shop.findAll({ where, order: [['name', 'ASC']] });
+/** Shop pages readers may see, by name. */
+export async function listShops() {
+	return models().Shop.findAll({ where: { moderation: 'visible' }, order: [['name', 'ASC']] });
 }
 
-/** Shops that asked for nothing yet but wait for an admin's check: every unverified page. */
-export async function awaitingVerification() {
-	return models().Shop.findAll({
-		where: { verifiedAt: null },
-		order: [['createdAt', 'ASC']]
+/** The admin's table of shops: those waiting for a check (oldest first) or all, with counts. */
+export async function shopsForCheck(opts: { show: 'waiting' | 'all'; sort: 'oldest' | 'name' }) {
+	const { Shop, User, ShopLink } = models();
+	const rows = await Shop.findAll({
+		where: opts.show === 'waiting' ? { verifiedAt: null } : {},
+		order: opts.sort === 'name' ? [['name', 'ASC']] : [['createdAt', 'ASC']],
+		limit: 200
 	});
+	const owners = rows.length
+		? await User.findAll({ where: { id: rows.map((r) => r.ownerId) }, attributes: ['id', 'email'] })
+		: [];
+	const links = await Promise.all(
+		rows.map((r) => ShopLink.count({ where: { shopId: r.id, state: 'approved' } }))
+	);
+	return rows.map((s, i) => ({
+		id: s.id,
+		name: s.name,
+		region: s.region,
+		owner: owners.find((o) => o.id === s.ownerId)?.email ?? '—',
+		created: s.createdAt.toISOString(),
+		verified: s.verifiedAt?.toISOString() ?? null,
+		links: links[i]
+	}));
 }
 
 /** Verification is an admin's stamp after checking the shop; giving and withdrawing are logged. */
@@ -110,46 +115,55 @@ export async function setVerified(
 	});
 }
 
-export type ShopSummary = {
-	builds: number;
-	speedByClass: { label: string; builds: number; medianKmh: number }[];
-	costByCurrency: { currency: string; builds: number; medianMinor: number }[];
-};
+/** A shop page as plain data for its own page and the shop desk. */
+export function shopView(shop: Shop) {
+	return {
+		id: shop.id,
+		name: shop.name,
+		region: shop.region,
+		services: shop.services,
+		openingNote: shop.openingNote,
+		logo: shop.logoKey !== null,
+		verified: shop.verifiedAt !== null,
+		hidden: shop.moderation === 'hidden',
+		hiddenReason: shop.hiddenReason
+	};
+}
 
-/** Figures over the shop's approved links to published, visible builds. */
-export async function summarise(shopId: number): Promise<ShopSummary> {
+/** The published, visible builds a shop is named on with their owners' agreement, newest first. */
+export async function linkedBuilds(shopId: number): Promise<LinkedBuild[]> {
 	const { ShopLink, Build } = models();
-	const ids = (
-		await ShopLink.findAll({ where: { shopId, state: 'approved' }, attributes: ['buildId'] })
-	).map((l) => l.buildId);
-	const rows = ids.length
+	const links = await ShopLink.findAll({
+		where: { shopId, state: 'approved' },
+		order: [['decidedAt', 'DESC']]
+	});
+	const rows = links.length
 		? await Build.findAll({
-				where: { id: [...new Set(ids)], publication: 'published', moderation: 'visible' },
-				attributes: ['id', 'repCc', 'bestSpeedKmh', 'partsTotalMinor', 'currency']
+				where: {
+					id: links.map((l) => l.buildId),
+					publication: 'published',
+					moderation: 'visible'
+				},
+				attributes: ['id', 'title', 'repCc', 'bestSpeedKmh', 'partsTotalMinor', 'currency']
 			})
 		: [];
-	const speedByClass = CC_CLASSES.map((c, i) => {
-		const min = i === 0 ? -Infinity : CC_CLASSES[i - 1].max;
-		const speeds = rows
-			.filter((b) => b.repCc !== null && b.repCc > min && b.repCc <= c.max)
-			.map((b) => b.bestSpeedKmh)
-			.filter((v): v is number => v !== null);
-		return { label: c.label, builds: speeds.length, medianKmh: speeds.length ? median(speeds) : 0 };
-	}).filter((c) => c.builds > 0);
-	const currencies = [...new Set(rows.map((b) => b.currency))].sort();
-	const costByCurrency = currencies
-		.map((currency) => {
-			const costs = rows
-				.filter((b) => b.currency === currency && b.partsTotalMinor > 0)
-				.map((b) => b.partsTotalMinor);
-			return {
-				currency,
-				builds: costs.length,
-				medianMinor: costs.length ? Math.round(median(costs)) : 0
-			};
-		})
-		.filter((c) => c.builds > 0);
-	return { builds: rows.length, speedByClass, costByCurrency };
+	const byId = new Map(rows.map((b) => [b.id, b]));
+	return links.flatMap((l) => {
+		const b = byId.get(l.buildId);
+		return b
+			? [
+					{
+						id: b.id,
+						title: b.title,
+						kind: l.kind,
+						cc: b.repCc,
+						bestKmh: b.bestSpeedKmh,
+						partsMinor: b.partsTotalMinor,
+						currency: b.currency
+					}
+				]
+			: [];
+	});
 }
 
 /** Removes a shop page and its logo object (account deletion). */

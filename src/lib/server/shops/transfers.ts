@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { db } from '../db/connection';
-import { models, type Shop } from '../db/models';
+import { models, type BuildTransfer, type Shop } from '../db/models';
 import * as builds from '../db/builds';
 import { normaliseEmail } from '../db/users';
 import { send } from '../mail';
@@ -19,19 +19,35 @@ export type HandoverView = {
 	state: 'pending' | 'accepted' | 'cancelled';
 };
 
+/** Offers as lists show them: one query for the offers, one for their builds and shops each. */
+async function views(rows: BuildTransfer[]): Promise<HandoverView[]> {
+	if (!rows.length) return [];
+	const { Build, Shop } = models();
+	const [bs, ss] = await Promise.all([
+		Build.findAll({ where: { id: rows.map((t) => t.buildId) }, attributes: ['id', 'title'] }),
+		Shop.findAll({ where: { id: rows.map((t) => t.shopId) }, attributes: ['id', 'name'] })
+	]);
+	return rows.flatMap((t) => {
+		const b = bs.find((x) => x.id === t.buildId);
+		const s = ss.find((x) => x.id === t.shopId);
+		return b && s
+			? [
+					{
+						id: t.id,
+						buildId: b.id,
+						buildTitle: b.title,
+						shopName: s.name,
+						toEmail: t.toEmail,
+						state: t.state
+					}
+				]
+			: [];
+	});
+}
+
 async function view(id: number): Promise<HandoverView | null> {
-	const { BuildTransfer, Shop } = models();
-	const t = await BuildTransfer.findByPk(id);
-	const [b, s] = t ? await Promise.all([builds.read(t.buildId), Shop.findByPk(t.shopId)]) : [];
-	if (!t || !b || !s) return null;
-	return {
-		id: t.id,
-		buildId: b.id,
-		buildTitle: b.title,
-		shopName: s.name,
-		toEmail: t.toEmail,
-		state: t.state
-	};
+	const t = await models().BuildTransfer.findByPk(id);
+	return t ? ((await views([t]))[0] ?? null) : null;
 }
 
 /** Whose sheets a shop may hand over: its owner's and those of staff who joined. */
@@ -111,7 +127,7 @@ export async function handoversOfShop(shopId: number) {
 		order: [['id', 'DESC']],
 		limit: 100
 	});
-	return (await Promise.all(rows.map((r) => view(r.id)))).filter((v) => v !== null);
+	return views(rows);
 }
 
 /** Offers waiting for this account (by its address), for the bench. */
@@ -120,7 +136,7 @@ export async function handoversFor(me: CurrentUser) {
 		where: { toEmail: normaliseEmail(me.email), state: 'pending' },
 		order: [['id', 'ASC']]
 	});
-	return (await Promise.all(rows.map((r) => view(r.id)))).filter((v) => v !== null);
+	return views(rows);
 }
 
 export type HandoverCheck =

@@ -2,9 +2,8 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { shopRefSchema } from '$lib/schemas/shops';
 import { clock } from '$lib/server/clock';
-import { models } from '$lib/server/db/models';
 import { requireRole } from '$lib/server/guard';
-import { setVerified } from '$lib/server/shops/pages';
+import { setVerified, shopsForCheck } from '$lib/server/shops/pages';
 import { parseForm } from '$lib/server/plain-form';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -12,31 +11,7 @@ export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'admin');
 	const show = event.url.searchParams.get('show') === 'all' ? 'all' : 'waiting';
 	const sort = event.url.searchParams.get('sort') === 'name' ? 'name' : 'oldest';
-	const { Shop, User, ShopLink } = models();
-	const rows = await Shop.findAll({
-		where: show === 'waiting' ? { verifiedAt: null } : {},
-		order: sort === 'name' ? [['name', 'ASC']] : [['createdAt', 'ASC']],
-		limit: 200
-	});
-	const owners = rows.length
-		? await User.findAll({ where: { id: rows.map((r) => r.ownerId) }, attributes: ['id', 'email'] })
-		: [];
-	const linkCounts = await Promise.all(
-		rows.map((r) => ShopLink.count({ where: { shopId: r.id, state: 'approved' } }))
-	);
-	return {
-		show,
-		sort,
-		shops: rows.map((s, i) => ({
-			id: s.id,
-			name: s.name,
-			region: s.region,
-			owner: owners.find((o) => o.id === s.ownerId)?.email ?? '—',
-			created: s.createdAt.toISOString(),
-			verified: s.verifiedAt?.toISOString() ?? null,
-			links: linkCounts[i]
-		}))
-	};
+	return { show, sort, shops: await shopsForCheck({ show, sort }) };
 };
 
 const decision = shopRefSchema.extend({ note: z.string().trim().max(300).default('') });

@@ -1,11 +1,11 @@
 import { error, fail } from '@sveltejs/kit';
 import { messageSchema } from '$lib/schemas/shops';
 import { clock } from '$lib/server/clock';
-import { models } from '$lib/server/db/models';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/plain-form';
 import { MessageLimited, sendMessage } from '$lib/server/shops/messages';
-import { summarise, viewShop } from '$lib/server/shops/pages';
+import { linkedBuilds, shopView, viewShop } from '$lib/server/shops/pages';
+import { summarise } from '$lib/shops/summary';
 import type { Actions, PageServerLoad } from './$types';
 
 const shopId = (raw: string) => {
@@ -17,45 +17,12 @@ const shopId = (raw: string) => {
 export const load: PageServerLoad = async (event) => {
 	const me = event.locals.user;
 	const { shop, acting } = await viewShop(shopId(event.params.id), me);
-	const { ShopLink, Build } = models();
-	const links = await ShopLink.findAll({
-		where: { shopId: shop.id, state: 'approved' },
-		order: [['decidedAt', 'DESC']]
-	});
-	const rows = links.length
-		? await Build.findAll({
-				where: {
-					id: links.map((l) => l.buildId),
-					publication: 'published',
-					moderation: 'visible'
-				},
-				attributes: ['id', 'title', 'repCc', 'bestSpeedKmh', 'partsTotalMinor', 'currency']
-			})
-		: [];
-	const kindOf = new Map(links.map((l) => [l.buildId, l.kind]));
+	const builds = await linkedBuilds(shop.id);
 	return {
-		shop: {
-			id: shop.id,
-			name: shop.name,
-			region: shop.region,
-			services: shop.services,
-			openingNote: shop.openingNote,
-			logo: shop.logoKey !== null,
-			verified: shop.verifiedAt !== null,
-			hidden: shop.moderation === 'hidden',
-			hiddenReason: shop.hiddenReason
-		},
+		shop: shopView(shop),
 		acting,
-		summary: await summarise(shop.id),
-		builds: rows.map((b) => ({
-			id: b.id,
-			title: b.title,
-			kind: kindOf.get(b.id) ?? 'built',
-			cc: b.repCc,
-			bestKmh: b.bestSpeedKmh,
-			partsMinor: b.partsTotalMinor,
-			currency: b.currency
-		})),
+		summary: summarise(builds),
+		builds,
 		canWrite: me !== null && !me.suspension && !acting,
 		signedIn: me !== null,
 		suspended: Boolean(me?.suspension)
