@@ -33,6 +33,17 @@ export default defineConfig({
 					testTimeout: 30_000,
 					hookTimeout: 60_000
 				}
+			},
+			{
+				extends: true,
+				test: {
+					name: 'security',
+					include: ['tests/security/**/*.test.ts'],
+					environment: 'node',
+					fileParallelism: false,
+					testTimeout: 60_000,
+					hookTimeout: 120_000
+				}
 			}
 		]
 	}

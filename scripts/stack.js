@@ -182,7 +182,12 @@ function secret() {
 }
 
 function announce() {
-	console.log(`\n  Squishline is up: ${e.ORIGIN}`);
+	console.log(`\n  Squishline DEMO is up: ${e.ORIGIN}`);
+	console.log(
+		'  This is the local demo: invented data, demo accounts whose passwords are printed below,\n' +
+			'  fake mail and storage, and a public outbox page. Never put it on the internet; to run\n' +
+			'  Squishline for real, see README.md, "Running in production" (npm run serve).'
+	);
 	const demo = JSON.parse(
 		fs.readFileSync(path.join(ROOT, 'scripts', 'demo', 'people.json'), 'utf8')
 	);

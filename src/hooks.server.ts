@@ -1,8 +1,14 @@
-import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from '$lib/server/auth';
+import { clientAddress } from '$lib/server/auth/client-address';
 import { loadCurrentUser } from '$lib/server/auth/current-user';
+import { forgetExpired } from '$lib/server/auth/sessions';
+import { bodyLimit } from '$lib/server/body-limits';
 import { flushCommentDigests } from '$lib/server/comment-digest';
+import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
+import { originCheck, pinHost } from '$lib/server/origin-check';
+import { withSecurityHeaders } from '$lib/server/security-headers';
 
 const currentUser: Handle = async ({ event, resolve }) => {
 	const session = await event.locals.auth();
@@ -11,9 +17,19 @@ const currentUser: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(authHandle, currentUser);
+export const handle = sequence(
+	withSecurityHeaders,
+	originCheck,
+	bodyLimit,
+	pinHost,
+	clientAddress,
+	authHandle,
+	currentUser
+);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
+	if (isDatabaseDown(error)) return { message: DB_UNAVAILABLE };
+	if (status === 413) return { message: 'That is more than this page accepts. Nothing was saved.' };
 	if (status !== 404) console.error(`[${event.request.method} ${event.url.pathname}]`, error);
 	return { message: status === 404 ? 'Not found.' : 'Something went wrong on our side.' };
 };
@@ -21,7 +37,9 @@ export const handleError: HandleServerError = ({ error, event, status }) => {
 /** Comment digests go out from the server process itself: a sweep each minute (see comment-digest.ts). */
 export const init: ServerInit = () => {
 	const timer = setInterval(() => {
-		flushCommentDigests(new Date()).catch((e: unknown) => console.error('[comment digest]', e));
+		const now = new Date();
+		flushCommentDigests(now).catch((e: unknown) => console.error('[comment digest]', e));
+		forgetExpired(now).catch((e: unknown) => console.error('[sessions]', e));
 	}, 60_000);
 	timer.unref();
 };

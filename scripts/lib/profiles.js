@@ -75,8 +75,11 @@ export function stackEnv(name, outer = process.env) {
 		FAKE_MAIL_DIR: abs(pick('FAKE_MAIL_DIR')),
 		BUILD_DIR: abs(pick('BUILD_DIR')),
 		RUN_DIR: abs(pick('RUN_DIR')),
-		BODY_SIZE_LIMIT: outer.BODY_SIZE_LIMIT ?? '200M',
+		// The largest body any route takes (a 15 MB photo in its envelope); routes cap lower.
+		BODY_SIZE_LIMIT: outer.BODY_SIZE_LIMIT ?? '16M',
 		AUTH_TRUST_HOST: 'true',
+		// This launcher runs the demo: fakes, demo accounts and the outbox page. Never production.
+		SQUISHLINE_DEMO: '1',
 		// The SDK is pinned to a release that supports Node 20; its reminder about Node 22 is noise here.
 		AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:
 			outer.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
@@ -84,6 +87,8 @@ export function stackEnv(name, outer = process.env) {
 	};
 	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
 	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;
+	// Auth.js builds its links from this, never from a request's Host or X-Forwarded-Host.
+	e.AUTH_URL = `${e.ORIGIN}/auth`;
 	return e;
 }
 
@@ -105,6 +110,7 @@ export const STACK_KEYS = [
 	'ORIGIN',
 	'S3_ENDPOINT',
 	'SMTP_URL',
+	'AUTH_URL',
 	'FRESH_DB'
 ];
 

@@ -75,12 +75,11 @@ async function perfSmoke(env) {
 }
 
 export async function runSuites({ env, build, startApp }) {
-	const results = [
-		await vitest('unit', env),
-		await vitest('integration', env),
-		await perfSmoke(env)
-	];
+	const results = [await vitest('unit', env)];
+	// Built before the server-side suites: the security suite starts the production entry on it.
 	await build();
+	results.push(await vitest('integration', env), await vitest('security', env));
+	results.push(await perfSmoke(env));
 	await startApp();
 	results.push(await playwright(env));
 

@@ -1,5 +1,5 @@
 import { roleAllows } from '$lib/roles';
-import { env } from '$lib/server/env';
+import { outboxDir } from '$lib/server/outbox';
 import { models } from '$lib/server/db/models';
 import type { LayoutServerLoad } from './$types';
 
@@ -13,7 +13,7 @@ export const load: LayoutServerLoad = async ({ locals }) => {
 	return {
 		user,
 		suspension: user?.suspension ?? null,
-		outbox: Boolean(env().FAKE_MAIL_DIR),
+		outbox: outboxDir() !== null,
 		shopDesk
 	};
 };

@@ -4,20 +4,26 @@ import { closeDb } from '../../src/lib/server/db/connection';
 import * as users from '../../src/lib/server/db/users';
 import { makeUser } from '../support/factories';
 
+let n = 0;
+/** A fresh client address per call: these tests are about the per-account rules. */
+const nextAddress = () => `192.0.2.${++n}`;
+
 afterAll(closeDb);
 
 describe('password sign-in gate', () => {
 	it('accepts the right password and refuses a wrong one without saying which part was wrong', async () => {
 		const u = await makeUser();
-		expect(await verifyPasswordSignIn(u.email, u.password)).toMatchObject({
+		expect(await verifyPasswordSignIn(u.email, u.password, nextAddress())).toMatchObject({
 			ok: true,
 			user: { id: u.id }
 		});
-		expect(await verifyPasswordSignIn(u.email, 'not the password')).toEqual({
+		expect(await verifyPasswordSignIn(u.email, 'not the password', nextAddress())).toEqual({
 			ok: false,
 			code: 'credentials'
 		});
-		expect(await verifyPasswordSignIn('nobody@tests.squishline.test', 'whatever12')).toEqual({
+		expect(
+			await verifyPasswordSignIn('nobody@tests.squishline.test', 'whatever12', nextAddress())
+		).toEqual({
 			ok: false,
 			code: 'credentials'
 		});
@@ -25,37 +31,42 @@ describe('password sign-in gate', () => {
 
 	it('is case-insensitive on the address', async () => {
 		const u = await makeUser();
-		expect((await verifyPasswordSignIn(u.email.toUpperCase(), u.password)).ok).toBe(true);
+		expect((await verifyPasswordSignIn(u.email.toUpperCase(), u.password, nextAddress())).ok).toBe(
+			true
+		);
 	});
 
 	it('locks an account after five wrong passwords, even for the right one', async () => {
 		const u = await makeUser();
 		for (let i = 0; i < 5; i++) {
-			expect((await verifyPasswordSignIn(u.email, `wrong guess ${i}`)).ok).toBe(false);
+			expect((await verifyPasswordSignIn(u.email, `wrong guess ${i}`, nextAddress())).ok).toBe(
+				false
+			);
 		}
-		expect(await verifyPasswordSignIn(u.email, u.password)).toEqual({
+		expect(await verifyPasswordSignIn(u.email, u.password, nextAddress())).toEqual({
 			ok: false,
 			code: 'rate-limited'
 		});
 		// Another account is untouched by the first one's lock.
 		const other = await makeUser();
-		expect((await verifyPasswordSignIn(other.email, other.password)).ok).toBe(true);
+		expect((await verifyPasswordSignIn(other.email, other.password, nextAddress())).ok).toBe(true);
 	});
 
 	it('a right password clears earlier failures', async () => {
 		const u = await makeUser();
-		for (let i = 0; i < 4; i++) await verifyPasswordSignIn(u.email, `wrong ${i}`);
-		expect((await verifyPasswordSignIn(u.email, u.password)).ok).toBe(true);
-		for (let i = 0; i < 4; i++) await verifyPasswordSignIn(u.email, `wrong again ${i}`);
-		expect((await verifyPasswordSignIn(u.email, u.password)).ok).toBe(true);
+		for (let i = 0; i < 4; i++) await verifyPasswordSignIn(u.email, `wrong ${i}`, nextAddress());
+		expect((await verifyPasswordSignIn(u.email, u.password, nextAddress())).ok).toBe(true);
+		for (let i = 0; i < 4; i++)
+			await verifyPasswordSignIn(u.email, `wrong again ${i}`, nextAddress());
+		expect((await verifyPasswordSignIn(u.email, u.password, nextAddress())).ok).toBe(true);
 	});
 
 	it('lets a suspended member in (read-only) and refuses an unconfirmed account with its reason', async () => {
 		const s = await makeUser();
 		await users.update(s.id, { suspendedAt: new Date(), suspendedReason: 'test' });
-		expect((await verifyPasswordSignIn(s.email, s.password)).ok).toBe(true);
+		expect((await verifyPasswordSignIn(s.email, s.password, nextAddress())).ok).toBe(true);
 		const n = await makeUser({ verified: false });
-		expect(await verifyPasswordSignIn(n.email, n.password)).toEqual({
+		expect(await verifyPasswordSignIn(n.email, n.password, nextAddress())).toEqual({
 			ok: false,
 			code: 'unverified'
 		});

@@ -131,6 +131,7 @@ const MATRIX: Record<string, Spec> = {
 	'/builds/new ?/import': { policy: 'member', ok: 400 },
 	'/builds/new ?/create': { policy: 'member', ok: 400 },
 	'/profile ?/save': { policy: 'member', ok: 400 },
+	'/profile ?/signOutEverywhere': { policy: 'member', ok: 303 },
 	'/report ?/default': { policy: 'member', ok: 400 },
 	'/review ?/note': { policy: 'moderator', ok: 400 },
 	'/review ?/decide': { policy: 'moderator', ok: 400 },
@@ -172,6 +173,7 @@ const MATRIX: Record<string, Spec> = {
 	'/admin ?/role': { policy: 'admin', ok: 400 },
 	'/admin ?/suspend': { policy: 'admin', ok: 400 },
 	'/admin ?/lift': { policy: 'admin', ok: 400 },
+	'/admin ?/endSessions': { policy: 'admin', ok: 400 },
 	'/admin/shops ?/verify': { policy: 'admin', ok: 400 },
 	'/admin/shops ?/unverify': { policy: 'admin', ok: 400 }
 };

@@ -36,6 +36,7 @@ export const LOG_LABEL: Record<string, string> = {
 	'second-look': 'Author asked for another look',
 	'lift-suspension': 'Lifted a suspension',
 	'change-role': 'Changed a role',
+	'end-sessions': 'Signed an account out everywhere',
 	'verify-shop': 'Verified a shop',
 	'unverify-shop': 'Withdrew a shop’s verification',
 	'link-request': 'Shop asked to be named on a build',

@@ -46,7 +46,20 @@ export const profileSchema = z.object({
 	mailNews: z.boolean().default(false)
 });
 
-/** Only same-site paths: a `next` pointing elsewhere would make sign-in an open redirect. */
+const HOME = 'http://squishline.invalid';
+
+/**
+ * Only same-site paths: a `next` pointing elsewhere would make sign-in an open redirect. Parsed
+ * the way a browser parses a Location header (tabs and newlines dropped, `\` read as `/`), so
+ * `/\evil.example` and `/<tab>/evil.example` are seen as the other host they are.
+ */
 export function safeNext(next: string | null | undefined): string {
-	return next && next.startsWith('/') && !next.startsWith('//') ? next : '/';
+	if (!next || !next.startsWith('/')) return '/';
+	let url: URL;
+	try {
+		url = new URL(next, HOME);
+	} catch {
+		return '/';
+	}
+	return url.origin === HOME ? url.pathname + url.search + url.hash : '/';
 }

@@ -1,4 +1,6 @@
 import * as tokens from './auth/email-tokens';
+import { liftAccountLock } from './auth/password-signin';
+import { endAllSessions } from './auth/sessions';
 import * as users from './db/users';
 import { env } from './env';
 import { linkLetter, send } from './mail';
@@ -72,5 +74,9 @@ export async function resetPassword(token: string, password: string) {
 	await users.setPassword(used.userId, password);
 	// Following the mailed link proves the address, as a verification link would.
 	await users.markVerified(used.userId);
+	// Whoever had the old password (or a session made with it) is out; the owner is let back in.
+	await endAllSessions(used.userId);
+	const user = await users.read(used.userId);
+	if (user) await liftAccountLock(user.email);
 	return used;
 }

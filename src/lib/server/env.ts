@@ -10,6 +10,12 @@ const schema = z.object({
 	DB_NAME: z.string().default('squishline'),
 	DB_USER: z.string().default('squishline'),
 	DB_PASSWORD: z.string().default('squishline-local'),
+	/** TLS to the database: "true" to require it; DB_TLS_CA names a CA file when it is private. */
+	DB_TLS: z
+		.enum(['true', 'false'])
+		.default('false')
+		.transform((v) => v === 'true'),
+	DB_TLS_CA: z.string().optional(),
 	/** Set when running migrations as the owner account: the account whose grants they set. */
 	DB_APP_USER: z.string().optional(),
 	DB_APP_HOST: z.string().default('127.0.0.1'),
@@ -24,8 +30,16 @@ const schema = z.object({
 		.transform((v) => v === 'true'),
 	SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),
 	MAIL_FROM: z.string().default('Squishline <bench@squishline.test>'),
-	/** Folder the local fake mail server writes to; when set, the outbox page is on. */
+	/** Folder the local fake mail server writes to; the outbox page reads it in the demo only. */
 	FAKE_MAIL_DIR: z.string().optional(),
+	/**
+	 * Set to "1" by the local launcher (npm start, npm test, npm run dev) and nothing else: the
+	 * demo's conveniences (the outbox page) exist only then. The production entry clears it.
+	 */
+	SQUISHLINE_DEMO: z
+		.string()
+		.optional()
+		.transform((v) => v === '1'),
 	AUTH_SECRET: z.string().optional()
 });
 

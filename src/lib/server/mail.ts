@@ -66,7 +66,11 @@ ${opts.footer ? `<p style="font-size:13px;color:#55524b">${esc(opts.footer)}</p>
 ${opts.unsubscribeUrl ? `<p style="font-size:12px;color:#55524b"><a href="${esc(opts.unsubscribeUrl)}" style="color:#55524b">Stop these mails</a></p>` : ''}
 <p>— Squishline</p></div>`;
 	const headers = opts.unsubscribeUrl
-		? { 'List-Unsubscribe': `<${opts.unsubscribeUrl}>` }
+		? {
+				'List-Unsubscribe': `<${opts.unsubscribeUrl}>`,
+				// RFC 8058: the provider may POST to that link without asking the reader anything.
+				'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click'
+			}
 		: undefined;
 	return { to: opts.to, subject: opts.subject, text, html, headers };
 }

@@ -2,8 +2,9 @@ import fs from 'node:fs/promises';
 import path from 'node:path';
 import { env } from './env';
 
-// Reads what the local fake mail server kept. Only on when FAKE_MAIL_DIR is set, so a
-// deployment with a real mail relay has no outbox at all.
+// Reads what the local fake mail server kept. Only in the local demo (SQUISHLINE_DEMO, set by
+// the launcher alone) with FAKE_MAIL_DIR set: the production entry has no outbox at all, whatever
+// else its environment holds.
 
 export type OutboxMail = {
 	id: string;
@@ -17,7 +18,8 @@ export type OutboxMail = {
 };
 
 export function outboxDir(): string | null {
-	return env().FAKE_MAIL_DIR ?? null;
+	const e = env();
+	return e.SQUISHLINE_DEMO ? (e.FAKE_MAIL_DIR ?? null) : null;
 }
 
 export async function listMail(to?: string): Promise<OutboxMail[]> {

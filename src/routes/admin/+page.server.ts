@@ -1,7 +1,13 @@
 import { fail } from '@sveltejs/kit';
 import { ROLES, type Role } from '$lib/roles';
 import { adminSuspendSchema, roleChangeSchema, userRefSchema } from '$lib/schemas/shops';
-import { changeRole, listUsers, USER_SORTS, type UserSort } from '$lib/server/admin/users';
+import {
+	changeRole,
+	endSessionsOf,
+	listUsers,
+	USER_SORTS,
+	type UserSort
+} from '$lib/server/admin/users';
 import { clock } from '$lib/server/clock';
 import { requireRole } from '$lib/server/guard';
 import { liftSuspension, suspendUser } from '$lib/server/moderation/desk';
@@ -38,6 +44,13 @@ export const actions: Actions = {
 		if (!form.ok) return failed(form.message, form.values.userId);
 		await suspendUser(me, form.data.userId, form.data.reason, form.data.days, clock());
 		return { admin: { userId: form.data.userId, message: 'Suspended, logged and mailed.' } };
+	},
+	endSessions: async (event) => {
+		const me = requireRole(event, 'admin');
+		const form = await parseForm(event.request, userRefSchema);
+		if (!form.ok) return failed(form.message, form.values.userId);
+		await endSessionsOf(me, form.data.userId, clock());
+		return { admin: { userId: form.data.userId, message: 'Signed out everywhere; logged.' } };
 	},
 	lift: async (event) => {
 		const me = requireRole(event, 'admin');

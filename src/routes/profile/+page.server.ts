@@ -1,4 +1,5 @@
-import { fail } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
+import { endAllSessions } from '$lib/server/auth/sessions';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import * as users from '$lib/server/db/users';
@@ -29,5 +30,10 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { form });
 		await users.update(me.id, form.data);
 		return message(form, 'Saved.');
+	},
+	signOutEverywhere: async (event) => {
+		const me = requireUser(event);
+		await endAllSessions(me.id);
+		redirect(303, '/signin?ended');
 	}
 };

@@ -3,7 +3,7 @@ import { CredentialsSignin } from '@auth/sveltekit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { signIn } from '$lib/server/auth';
-import { mailRequests, passwordAttemptsByAddress, take } from '$lib/server/auth/limits';
+import { mailRequests, take } from '$lib/server/auth/limits';
 import { linkSignInSchema, passwordSignInSchema, safeNext } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -12,7 +12,9 @@ const REASONS: Record<string, string> = {
 	unverified:
 		'Confirm your e-mail address first: use the link in the mail we sent when you joined.',
 	'rate-limited':
-		'Too many wrong passwords for this account. Wait 15 minutes, or reset the password by mail.'
+		'Too many wrong passwords for this account. Wait 15 minutes, or reset the password by mail.',
+	'address-limited':
+		'Too many sign-in attempts from your network. Wait 15 minutes, or reset your password by mail.'
 };
 
 export const load: PageServerLoad = async ({ locals, url }) => {
@@ -26,6 +28,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		password,
 		link,
 		reset: url.searchParams.has('reset'),
+		ended: url.searchParams.has('ended'),
 		verified: url.searchParams.has('verified')
 	};
 };
@@ -46,9 +49,6 @@ export const actions: Actions = {
 		const password = form.data.password;
 		form.data.password = ''; // never echo a password back into the page
 		if (!form.valid) return fail(400, { password: form });
-		if (!(await take(passwordAttemptsByAddress, event.getClientAddress()))) {
-			return message(form, REASONS['rate-limited'], { status: 429 });
-		}
 		try {
 			await signIn(
 				authEvent(event, {
@@ -61,7 +61,10 @@ export const actions: Actions = {
 		} catch (e) {
 			if (isRedirect(e)) throw e;
 			if (e instanceof CredentialsSignin) {
-				return message(form, REASONS[e.code] ?? REASONS.credentials, { status: 400 });
+				const limited = e.code === 'rate-limited' || e.code === 'address-limited';
+				return message(form, REASONS[e.code] ?? REASONS.credentials, {
+					status: limited ? 429 : 400
+				});
 			}
 			throw e;
 		}

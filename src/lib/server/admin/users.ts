@@ -3,6 +3,7 @@ import { Op, type Order, type WhereOptions } from 'sequelize';
 import { activeSuspension } from '../../moderation/suspension';
 import { ROLES, type Role } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
+import { endAllSessions } from '../auth/sessions';
 import { models, type User } from '../db/models';
 import * as users from '../db/users';
 import * as log from '../moderation/log';
@@ -77,5 +78,19 @@ export async function changeRole(me: CurrentUser, userId: string, role: Role, no
 		action: 'change-role',
 		subjectId: u.id,
 		detail: { from: u.role, to: role }
+	});
+}
+
+/** Signs an account out on every device (a stolen session, a shared computer); logged. */
+export async function endSessionsOf(me: CurrentUser, userId: string, now: Date) {
+	const u = await users.read(userId);
+	if (!u) error(404, 'No such account.');
+	await endAllSessions(u.id);
+	await log.append({
+		at: now,
+		actorId: me.id,
+		action: 'end-sessions',
+		subjectId: u.id,
+		detail: {}
 	});
 }

@@ -8,7 +8,9 @@ import * as users from '../db/users';
 import { env } from '../env';
 import { linkLetter, send } from '../mail';
 import { passwordSignInSchema } from '../../schemas/account';
+import { CLIENT_ADDRESS_HEADER } from './client-address';
 import { verifyPasswordSignIn, type PasswordSignInResult } from './password-signin';
+import { endSession, openSession, sessionValid } from './sessions';
 
 type FailureCode = Extract<PasswordSignInResult, { ok: false }>['code'];
 
@@ -20,6 +22,8 @@ export class PasswordSignInError extends CredentialsSignin {
 	}
 }
 
+const SESSION_MAX_AGE_S = 30 * 24 * 3600;
+
 const QUIET = new Set(['Verification', 'AccessDenied']);
 
 let config: SvelteKitAuthConfig | null = null;
@@ -29,11 +33,15 @@ function authConfig(): SvelteKitAuthConfig {
 	const m = models();
 	const e = env();
 	config = {
+		// Links are built from AUTH_URL (ORIGIN/auth, set by both launchers); Host is pinned to
+		// ORIGIN and forwarded-host headers are dropped before Auth.js runs (origin-check.ts).
 		trustHost: true,
 		secret: e.AUTH_SECRET,
+		useSecureCookies: e.ORIGIN.startsWith('https:'),
 		// Password sign-in works only with JWT sessions; role and suspension are re-read from the
-		// database on every request in hooks.server.ts, never trusted from the token.
-		session: { strategy: 'jwt', maxAge: 30 * 24 * 3600 },
+		// database on every request in hooks.server.ts, never trusted from the token. The database
+		// can still end a session: see sessions.ts.
+		session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
 		adapter: SequelizeAdapter(db(), {
 			synchronize: false,
 			models: {
@@ -48,10 +56,14 @@ function authConfig(): SvelteKitAuthConfig {
 			Credentials({
 				id: 'password',
 				credentials: { email: {}, password: {} },
-				async authorize(credentials) {
+				async authorize(credentials, request) {
 					const parsed = passwordSignInSchema.safeParse(credentials);
 					if (!parsed.success) throw new PasswordSignInError('credentials');
-					const result = await verifyPasswordSignIn(parsed.data.email, parsed.data.password);
+					const result = await verifyPasswordSignIn(
+						parsed.data.email,
+						parsed.data.password,
+						request.headers.get(CLIENT_ADDRESS_HEADER) ?? 'unknown'
+					);
 					if (!result.ok) throw new PasswordSignInError(result.code);
 					return result.user;
 				}
@@ -78,9 +90,27 @@ function authConfig(): SvelteKitAuthConfig {
 			})
 		],
 		callbacks: {
+			// Runs at sign-in (with `user`) and on every read of the session: null ends it.
+			async jwt({ token, user }) {
+				if (user?.id) {
+					const claims = await openSession(user.id);
+					return claims ? { ...token, ...claims } : null;
+				}
+				const claims = { sid: token.sid, gen: token.gen };
+				if (!token.sub || !(await sessionValid(token.sub, claims))) return null;
+				return token;
+			},
 			async session({ session, token }) {
 				if (token.sub) session.user.id = token.sub;
 				return session;
+			}
+		},
+		events: {
+			async signOut(message) {
+				const token = 'token' in message ? message.token : null;
+				if (!token) return;
+				const exp = typeof token.exp === 'number' ? token.exp * 1000 : Date.now();
+				await endSession(token.sid, new Date(Math.max(exp, Date.now() + SESSION_MAX_AGE_S * 1000)));
 			}
 		},
 		logger: {
@@ -88,6 +118,11 @@ function authConfig(): SvelteKitAuthConfig {
 				// A wrong password, a spent link or a suspended account is the visitor's news, not a fault.
 				if (error instanceof CredentialsSignin || QUIET.has(error.name)) return;
 				console.error('[auth]', error);
+			},
+			warn(code) {
+				// AUTH_URL is set on purpose (links from ORIGIN only) beside the adapter's basePath.
+				if (code === 'env-url-basepath-redundant') return;
+				console.warn(`[auth] ${code}`);
 			}
 		}
 	};

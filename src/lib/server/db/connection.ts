@@ -1,6 +1,8 @@
+import fs from 'node:fs';
 import mariadb from 'mariadb';
 import { Sequelize } from 'sequelize';
 import { env } from '../env';
+import { rethrowUnavailable } from './unavailable';
 
 let instance: Sequelize | null = null;
 
@@ -16,9 +18,32 @@ export function db(): Sequelize {
 		dialectModule: mariadb,
 		logging: false,
 		pool: { max: 10, min: 0, idle: 10_000 },
-		dialectOptions: { connectTimeout: 3_000 }
+		dialectOptions: {
+			connectTimeout: 3_000,
+			...(e.DB_TLS
+				? {
+						ssl: e.DB_TLS_CA
+							? { ca: fs.readFileSync(e.DB_TLS_CA, 'utf8') }
+							: { rejectUnauthorized: true }
+					}
+				: {})
+		}
 	});
+	reportOutages(instance);
 	return instance;
+}
+
+/**
+ * Every query and transaction goes through these two methods: a lost database comes out of them
+ * as one 503 answer ("nothing was saved") instead of a generic fault on whichever page asked.
+ */
+function reportOutages(s: Sequelize) {
+	const query = s.query.bind(s) as (...a: unknown[]) => Promise<unknown>;
+	const transaction = s.transaction.bind(s) as (...a: unknown[]) => Promise<unknown>;
+	Object.assign(s, {
+		query: (...a: unknown[]) => query(...a).catch(rethrowUnavailable),
+		transaction: (...a: unknown[]) => transaction(...a).catch(rethrowUnavailable)
+	});
 }
 
 export async function closeDb(): Promise<void> {

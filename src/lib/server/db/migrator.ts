@@ -11,6 +11,7 @@ import * as m007 from './migrations/2026.12.02T03.00.00.close-builds-by-carb';
 import * as m008 from './migrations/2026.12.02T04.00.00.stats-and-search';
 import * as m009 from './migrations/2026.12.02T06.00.00.moderation';
 import * as m010 from './migrations/2026.12.02T11.00.00.shops';
+import * as m011 from './migrations/2026.12.02T18.00.00.sessions-and-mail-queue';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -25,7 +26,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T03.00.00.close-builds-by-carb', ...m007 },
 	{ name: '2026.12.02T04.00.00.stats-and-search', ...m008 },
 	{ name: '2026.12.02T06.00.00.moderation', ...m009 },
-	{ name: '2026.12.02T11.00.00.shops', ...m010 }
+	{ name: '2026.12.02T11.00.00.shops', ...m010 },
+	{ name: '2026.12.02T18.00.00.sessions-and-mail-queue', ...m011 }
 ];
 
 export function migrator() {

@@ -1,0 +1,128 @@
+import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+
+// `npm run serve` (scripts/production.js) against the test stack's own MariaDB, object store and
+// mail server, on a port of its own. It runs after the test build (scripts/lib/suites.js).
+const root = path.resolve(import.meta.dirname, '../..');
+const PORT = '3196';
+const ORIGIN = `http://127.0.0.1:${PORT}`;
+
+/** A complete production environment: only the operator's settings, no launcher variables. */
+function productionSettings(): Record<string, string> {
+	const e = process.env;
+	return {
+		PATH: e.PATH ?? '',
+		HOME: e.HOME ?? '/root',
+		AUTH_SECRET: 'x'.repeat(48),
+		ORIGIN,
+		PORT,
+		HOST: '127.0.0.1',
+		BUILD_DIR: e.BUILD_DIR!,
+		DB_HOST: '127.0.0.1',
+		DB_PORT: e.DB_PORT!,
+		DB_NAME: e.DB_NAME!,
+		DB_USER: e.DB_USER!,
+		DB_PASSWORD: e.DB_PASSWORD!,
+		S3_ENDPOINT: e.S3_ENDPOINT!,
+		S3_BUCKET: e.S3_BUCKET!,
+		S3_REGION: e.S3_REGION!,
+		S3_ACCESS_KEY_ID: e.S3_ACCESS_KEY_ID!,
+		S3_SECRET_ACCESS_KEY: e.S3_SECRET_ACCESS_KEY!,
+		S3_FORCE_PATH_STYLE: 'true',
+		SMTP_URL: e.SMTP_URL!,
+		MAIL_FROM: 'Squishline <bench@squishline.test>'
+	};
+}
+
+const REQUIRED = [
+	'AUTH_SECRET',
+	'ORIGIN',
+	'DB_HOST',
+	'DB_NAME',
+	'DB_USER',
+	'DB_PASSWORD',
+	'S3_ENDPOINT',
+	'S3_BUCKET',
+	'S3_REGION',
+	'S3_ACCESS_KEY_ID',
+	'S3_SECRET_ACCESS_KEY',
+	'SMTP_URL',
+	'MAIL_FROM'
+];
+
+function runEntry(env: Record<string, string>, ms = 15_000) {
+	const child = spawn(process.execPath, ['scripts/production.js'], { cwd: root, env });
+	let out = '';
+	child.stdout.on('data', (d) => (out += d));
+	child.stderr.on('data', (d) => (out += d));
+	const exited = new Promise<number | null>((resolve) => {
+		const timer = setTimeout(() => resolve(null), ms);
+		child.once('exit', (code) => {
+			clearTimeout(timer);
+			resolve(code);
+		});
+	});
+	return { child, exited, output: () => out };
+}
+
+const started: ReturnType<typeof runEntry>[] = [];
+afterAll(() => {
+	for (const s of started) s.child.kill('SIGTERM');
+});
+
+describe('the production entry refuses to start without its settings', () => {
+	it('names every missing setting at once', async () => {
+		const { exited, output } = runEntry({ PATH: process.env.PATH ?? '' });
+		expect(await exited).toBe(1);
+		for (const key of REQUIRED) expect(output()).toContain(`${key} is not set`);
+	});
+
+	it.each(REQUIRED)('refuses without %s and names it', async (key) => {
+		const env = productionSettings();
+		delete env[key];
+		const { exited, output } = runEntry(env);
+		expect(await exited).toBe(1);
+		expect(output()).toContain(`${key} is not set`);
+		expect(output().match(/is not set/g)).toHaveLength(1);
+	});
+
+	it('refuses a short secret and an origin with a path', async () => {
+		const env = { ...productionSettings(), AUTH_SECRET: 'short', ORIGIN: `${ORIGIN}/app` };
+		const { exited, output } = runEntry(env);
+		expect(await exited).toBe(1);
+		expect(output()).toContain('AUTH_SECRET is too short');
+		expect(output()).toContain('ORIGIN is the bare origin');
+	});
+
+	it('refuses when the database does not answer', async () => {
+		const { exited, output } = runEntry({ ...productionSettings(), DB_PORT: '1' });
+		expect(await exited).toBe(1);
+		expect(output()).toContain('the database did not answer');
+	});
+});
+
+describe('with its settings it starts, with no demo conveniences', () => {
+	it('serves, is healthy, and has no outbox even when FAKE_MAIL_DIR and the demo switch are set', async () => {
+		const entry = runEntry(
+			{
+				...productionSettings(),
+				FAKE_MAIL_DIR: process.env.FAKE_MAIL_DIR!,
+				SQUISHLINE_DEMO: '1'
+			},
+			60_000
+		);
+		started.push(entry);
+		let health: Response | null = null;
+		for (let i = 0; i < 200 && !health; i++) {
+			health = await fetch(`${ORIGIN}/api/health`).catch(() => null);
+			if (!health) await new Promise((r) => setTimeout(r, 100));
+		}
+		expect(health?.status, entry.output()).toBe(200);
+		expect(entry.output()).toContain('Squishline (production)');
+		expect((await fetch(`${ORIGIN}/dev/outbox`)).status).toBe(404);
+		const home = await (await fetch(`${ORIGIN}/`)).text();
+		expect(home).not.toContain('/dev/outbox');
+		expect(home).toContain('Squishline');
+	});
+});
