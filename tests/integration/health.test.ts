@@ -2,8 +2,10 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import S3rver from 's3rver';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
+import { forgetMailCheck } from '../../src/lib/server/health';
+import { mailer } from '../../src/lib/server/mail';
 import { GET } from '../../src/routes/api/health/+server';
 
 // The health route against the real database and mail server, with an object store of the
@@ -30,8 +32,9 @@ afterAll(async () => {
 	await closeDb();
 });
 
-const call = async () => {
-	const res = await GET({} as never);
+const admin = { id: 'a', role: 'admin' };
+const call = async (user: object | null = admin) => {
+	const res = await GET({ locals: { user } } as never);
 	return { status: res.status, body: await res.json() };
 };
 
@@ -45,12 +48,29 @@ describe('GET /api/health', () => {
 		expect(body.services['mail server'].up).toBe(true);
 	});
 
-	it('answers 503 naming the object store once it is stopped', async () => {
+	it('asks the mail relay at most once a minute, however often it is probed', async () => {
+		forgetMailCheck();
+		const verify = vi.spyOn(mailer(), 'verify');
+		try {
+			for (let i = 0; i < 5; i++) expect((await call(null)).status).toBe(200);
+			expect(verify).toHaveBeenCalledTimes(1);
+		} finally {
+			verify.mockRestore();
+		}
+	});
+
+	it('answers 503 naming the object store once it is stopped — to admins only', async () => {
 		await server.close();
 		const { status, body } = await call();
 		expect(status).toBe(503);
 		expect(body.down).toEqual(['object store']);
 		expect(body.error).toContain('object store');
 		expect(body.services.database.up).toBe(true);
+
+		for (const visitor of [null, { id: 'm', role: 'member' }, { id: 'd', role: 'moderator' }]) {
+			const pub = await call(visitor);
+			expect(pub.status).toBe(503);
+			expect(pub.body).toEqual({ status: 'down' });
+		}
 	});
 });

@@ -1,39 +1,11 @@
-import { spawn } from 'node:child_process';
-import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import { productionSettings as settingsOn, runEntry, type Entry } from './support/app';
 
 // `npm run serve` (scripts/production.js) against the test stack's own MariaDB, object store and
 // mail server, on a port of its own. It runs after the test build (scripts/lib/suites.js).
-const root = path.resolve(import.meta.dirname, '../..');
-const PORT = '3196';
+const PORT = 3196;
 const ORIGIN = `http://127.0.0.1:${PORT}`;
-
-/** A complete production environment: only the operator's settings, no launcher variables. */
-function productionSettings(): Record<string, string> {
-	const e = process.env;
-	return {
-		PATH: e.PATH ?? '',
-		HOME: e.HOME ?? '/root',
-		AUTH_SECRET: 'x'.repeat(48),
-		ORIGIN,
-		PORT,
-		HOST: '127.0.0.1',
-		BUILD_DIR: e.BUILD_DIR!,
-		DB_HOST: '127.0.0.1',
-		DB_PORT: e.DB_PORT!,
-		DB_NAME: e.DB_NAME!,
-		DB_USER: e.DB_USER!,
-		DB_PASSWORD: e.DB_PASSWORD!,
-		S3_ENDPOINT: e.S3_ENDPOINT!,
-		S3_BUCKET: e.S3_BUCKET!,
-		S3_REGION: e.S3_REGION!,
-		S3_ACCESS_KEY_ID: e.S3_ACCESS_KEY_ID!,
-		S3_SECRET_ACCESS_KEY: e.S3_SECRET_ACCESS_KEY!,
-		S3_FORCE_PATH_STYLE: 'true',
-		SMTP_URL: e.SMTP_URL!,
-		MAIL_FROM: 'Squishline <bench@squishline.test>'
-	};
-}
+const productionSettings = () => ({ ...settingsOn(PORT), AUTH_SECRET: 'x'.repeat(48) });
 
 const REQUIRED = [
 	'AUTH_SECRET',
@@ -51,22 +23,7 @@ const REQUIRED = [
 	'MAIL_FROM'
 ];
 
-function runEntry(env: Record<string, string>, ms = 15_000) {
-	const child = spawn(process.execPath, ['scripts/production.js'], { cwd: root, env });
-	let out = '';
-	child.stdout.on('data', (d) => (out += d));
-	child.stderr.on('data', (d) => (out += d));
-	const exited = new Promise<number | null>((resolve) => {
-		const timer = setTimeout(() => resolve(null), ms);
-		child.once('exit', (code) => {
-			clearTimeout(timer);
-			resolve(code);
-		});
-	});
-	return { child, exited, output: () => out };
-}
-
-const started: ReturnType<typeof runEntry>[] = [];
+const started: Entry[] = [];
 afterAll(() => {
 	for (const s of started) s.child.kill('SIGTERM');
 });

@@ -38,8 +38,12 @@ export const bodyLimit: Handle = ({ event, resolve }) => {
 		const wantsJson =
 			event.url.pathname.startsWith('/api/') ||
 			event.request.headers.get('accept')?.includes('application/json');
+		// Connection: close, so no client reuses a socket whose unread body is still arriving.
 		return wantsJson
-			? Response.json({ error: message, issues: [] }, { status: 413 })
+			? Response.json(
+					{ error: message, issues: [] },
+					{ status: 413, headers: { connection: 'close' } }
+				)
 			: new Response(message, {
 					status: 413,
 					headers: { 'content-type': 'text/plain; charset=utf-8', connection: 'close' }

@@ -18,10 +18,27 @@ function withTimeout<T>(p: Promise<T>, ms: number): Promise<T> {
 	return Promise.race([p, timeout]).finally(() => clearTimeout(timer));
 }
 
+/** How long one answer from the mail relay stands: probes must not open an SMTP session each. */
+export const MAIL_CHECK_TTL_MS = 60_000;
+let mailCheck: { at: number; result: Promise<void> } | null = null;
+
+function cachedMailCheck(now = Date.now()): Promise<void> {
+	if (!mailCheck || now - mailCheck.at > MAIL_CHECK_TTL_MS) {
+		mailCheck = { at: now, result: withTimeout(pingMail(), 4000) };
+		mailCheck.result.catch(() => undefined);
+	}
+	return mailCheck.result;
+}
+
+/** Forgets the cached mail answer (tests; an admin asking after fixing the relay). */
+export function forgetMailCheck() {
+	mailCheck = null;
+}
+
 const probes: Record<ServiceName, () => Promise<unknown>> = {
 	database: () => db().query('SELECT 1'),
 	'object store': pingStorage,
-	'mail server': pingMail
+	'mail server': () => cachedMailCheck()
 };
 
 /** Asks each service in parallel; one that fails or is slow is reported by name. */

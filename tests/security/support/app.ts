@@ -56,13 +56,24 @@ export function runEntry(env: Record<string, string>, ms = 15_000): Entry {
 	return { child, exited, output: () => out };
 }
 
-export type App = { origin: string; entry: Entry; stop: () => Promise<void> };
+export type App = {
+	/** Where the app listens. */
+	origin: string;
+	entry: Entry;
+	stop: () => Promise<void>;
+};
 
 /** Starts the production entry and waits until /api/health answers. */
 export async function startApp(port: number, extra: Record<string, string> = {}): Promise<App> {
 	const origin = `http://127.0.0.1:${port}`;
 	const entry = runEntry(
-		{ ...productionSettings(port), ADDRESS_HEADER: 'x-forwarded-for', XFF_DEPTH: '1', ...extra },
+		{
+			...productionSettings(port),
+			ADDRESS_HEADER: 'x-forwarded-for',
+			XFF_DEPTH: '1',
+			SHUTDOWN_TIMEOUT: '1',
+			...extra
+		},
 		10 * 60_000
 	);
 	for (let i = 0; i < 300; i++) {
@@ -94,7 +105,9 @@ export class Client {
 	readonly cookies = new Map<string, string>();
 	constructor(
 		readonly origin: string,
-		readonly address = freshAddress()
+		readonly address = freshAddress(),
+		/** Where to connect, when the site's ORIGIN (https behind a proxy) is not it. */
+		readonly base = origin
 	) {}
 
 	async fetch(pathname: string, init: RequestInit = {}): Promise<Response> {
@@ -104,7 +117,7 @@ export class Client {
 			headers.set('origin', this.origin);
 		if (this.cookies.size)
 			headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
-		const res = await fetch(new URL(pathname, this.origin), {
+		const res = await fetch(new URL(pathname, this.base), {
 			...init,
 			headers,
 			redirect: 'manual'
@@ -125,7 +138,11 @@ export class Client {
 	form(pathname: string, fields: Record<string, string>, headers: Record<string, string> = {}) {
 		return this.fetch(pathname, {
 			method: 'POST',
-			headers: { 'content-type': 'application/x-www-form-urlencoded', ...headers },
+			headers: {
+				'content-type': 'application/x-www-form-urlencoded',
+				accept: 'text/html',
+				...headers
+			},
 			body: new URLSearchParams(fields).toString()
 		});
 	}

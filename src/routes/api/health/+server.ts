@@ -1,15 +1,18 @@
 import { json } from '@sveltejs/kit';
+import { roleAllows } from '$lib/roles';
 import { checkHealth } from '$lib/server/health';
 import type { RequestHandler } from './$types';
 
-// Public on purpose: load balancers and the start script poll it. It names services, not secrets.
-export const GET: RequestHandler = async () => {
+// Public on purpose: load balancers and the start script poll it. The public answer is a bare
+// status; which service is down, and why, is for admins only.
+export const GET: RequestHandler = async ({ locals }) => {
 	const health = await checkHealth();
+	const status = health.down.length ? 503 : 200;
+	const headers = { 'cache-control': 'no-store' };
+	if (!locals.user || !roleAllows(locals.user.role, 'admin'))
+		return json({ status: health.status }, { status, headers });
 	const body = health.down.length
 		? { ...health, error: `down: ${health.down.join(', ')}` }
 		: health;
-	return json(body, {
-		status: health.down.length ? 503 : 200,
-		headers: { 'cache-control': 'no-store' }
-	});
+	return json(body, { status, headers });
 };
