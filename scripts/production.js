@@ -30,6 +30,10 @@ if (pending.names.length)
 	]);
 
 Object.assign(process.env, env);
+// adapter-node closes the server on SIGTERM/SIGINT and the app lets go of the database; should
+// anything still hold the process, it ends anyway once in-flight requests had their time.
+for (const signal of ['SIGTERM', 'SIGINT'])
+	process.once(signal, () => setTimeout(() => process.exit(0), 20_000).unref());
 for (const k of ['SQUISHLINE_DEMO', 'FAKE_MAIL_DIR']) delete process.env[k];
 console.log(`Squishline (production) on ${env.HOST}:${env.PORT}, serving ${env.ORIGIN}`);
 await import(path.join(buildDir, 'index.js'));

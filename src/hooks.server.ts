@@ -6,6 +6,9 @@ import { loadCurrentUser } from '$lib/server/auth/current-user';
 import { forgetExpired } from '$lib/server/auth/sessions';
 import { bodyLimit } from '$lib/server/body-limits';
 import { flushCommentDigests } from '$lib/server/comment-digest';
+import '$lib/server/mail';
+import { flushMailQueue } from '$lib/server/mail-queue';
+import { closeDb } from '$lib/server/db/connection';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/origin-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
@@ -34,7 +37,7 @@ export const handleError: HandleServerError = ({ error, event, status }) => {
 	return { message: status === 404 ? 'Not found.' : 'Something went wrong on our side.' };
 };
 
-/** Comment digests go out from the server process itself: a sweep each minute (see comment-digest.ts). */
+/** Timed work from the server process itself: comment digests, expired sessions, the mail queue. */
 export const init: ServerInit = () => {
 	const timer = setInterval(() => {
 		const now = new Date();
@@ -42,4 +45,15 @@ export const init: ServerInit = () => {
 		forgetExpired(now).catch((e: unknown) => console.error('[sessions]', e));
 	}, 60_000);
 	timer.unref();
+	// The mail queue: every process sweeps, and each letter is claimed by one (mail-queue.ts).
+	const mail = setInterval(() => {
+		flushMailQueue(new Date()).catch((e: unknown) => console.error('[mail queue]', e));
+	}, 5_000);
+	mail.unref();
+	// adapter-node emits this once the server has stopped taking requests (SIGTERM, SIGINT).
+	process.once('sveltekit:shutdown' as never, () => {
+		clearInterval(timer);
+		clearInterval(mail);
+		closeDb().catch(() => undefined);
+	});
 };

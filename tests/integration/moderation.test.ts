@@ -10,7 +10,7 @@ import { readCase } from '../../src/lib/server/moderation/cases';
 import { decide } from '../../src/lib/server/moderation/desk';
 import * as log from '../../src/lib/server/moderation/log';
 import { fileReport } from '../../src/lib/server/moderation/reports';
-import { listMail } from '../../src/lib/server/outbox';
+import { deliveredTo } from '../support/mail';
 import { unsubscribeUrl } from '../../src/lib/server/unsubscribe';
 import { actions as unsubscribeActions } from '../../src/routes/unsubscribe/[token]/+page.server';
 import { actions as buildActions } from '../../src/routes/builds/[id]/+page.server';
@@ -24,7 +24,7 @@ const MIN = 60_000;
 const address = () => `10.9.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
 
 async function mailsTo(email: string) {
-	return listMail(email);
+	return deliveredTo(email);
 }
 
 describe('the moderation log', () => {

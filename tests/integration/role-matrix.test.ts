@@ -136,6 +136,7 @@ const MATRIX: Record<string, Spec> = {
 	'/review ?/note': { policy: 'moderator', ok: 400 },
 	'/review ?/decide': { policy: 'moderator', ok: 400 },
 	'/reset ?/default': { policy: 'public', ok: 400 },
+	'/verify/again ?/default': { policy: 'public', ok: 400 },
 	'/reset/[token] ?/default': { policy: 'public', ok: 400 },
 	'/signin ?/password': { policy: 'public', ok: 400 },
 	'/signin ?/link': { policy: 'public', ok: 400 },

@@ -7,7 +7,7 @@ import { closeDb, db } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
 import { createComment } from '../../src/lib/server/comments';
 import { fileReport } from '../../src/lib/server/moderation/reports';
-import { listMail } from '../../src/lib/server/outbox';
+import { deliveredTo } from '../support/mail';
 import { addPhoto } from '../../src/lib/server/sheets/photos';
 import { decideLink, requestLink, shownLinks } from '../../src/lib/server/shops/links';
 import { setLogo } from '../../src/lib/server/shops/logo';
@@ -53,7 +53,7 @@ async function newShop(name = 'Fixture Two-Stroke Works') {
 /** The path and token of the first link in the newest mail to `to` whose text contains `part`. */
 async function mailedToken(to: string, part: string): Promise<string> {
 	for (let i = 0; i < 50; i++) {
-		const mail = (await listMail(to))[0];
+		const mail = (await deliveredTo(to))[0];
 		const hit = mail?.text.match(new RegExp(`${part}/([A-Za-z0-9_.-]+)`));
 		if (hit) return hit[1];
 		await new Promise((r) => setTimeout(r, 100));
@@ -161,7 +161,7 @@ describe('writing to a shop', () => {
 		const member = await person();
 		const now = new Date();
 		await sendMessage(member, shop, 'Can you port a 70 cc kit?', '10.6.0.1', now);
-		const inbox = await listMail(owner.email);
+		const inbox = await deliveredTo(owner.email);
 		expect(inbox[0].subject).toContain('A message for Quiet Counter');
 		expect(inbox[0].text).toContain('Can you port a 70 cc kit?');
 		expect(inbox[0].text + inbox[0].html).not.toContain(member.email);
@@ -169,7 +169,7 @@ describe('writing to a shop', () => {
 		expect(m.fromEmail).toBeNull();
 
 		await replyToMessage(owner, shop, m.id, 'Yes, bring the cases on Saturday.', now);
-		const answer = (await listMail(member.email))[0];
+		const answer = (await deliveredTo(member.email))[0];
 		expect(answer.text).toContain('Yes, bring the cases on Saturday.');
 		expect(answer.text).toContain(owner.email);
 		expect((await messagesOf(shop.id))[0].fromEmail).toBe(member.email);

@@ -5,7 +5,10 @@ import { productionSettings as settingsOn, runEntry, type Entry } from './suppor
 // mail server, on a port of its own. It runs after the test build (scripts/lib/suites.js).
 const PORT = 3196;
 const ORIGIN = `http://127.0.0.1:${PORT}`;
-const productionSettings = () => ({ ...settingsOn(PORT), AUTH_SECRET: 'x'.repeat(48) });
+const productionSettings = (): Record<string, string> => ({
+	...settingsOn(PORT),
+	AUTH_SECRET: 'x'.repeat(48)
+});
 
 const REQUIRED = [
 	'AUTH_SECRET',

@@ -1,17 +1,24 @@
 import * as tokens from './auth/email-tokens';
+import { hashPassword } from './auth/password';
 import { liftAccountLock } from './auth/password-signin';
 import { endAllSessions } from './auth/sessions';
 import * as users from './db/users';
 import { env } from './env';
 import { linkLetter, send } from './mail';
 
-// Account flows that send mail. Answers never reveal whether an address has an account.
+// Account flows that send mail. Answers never reveal whether an address has an account, and
+// mail is queued (send), so the answer does not wait on the relay or show by its timing whether
+// a mail went out.
 
 const link = (path: string) => new URL(path, env().ORIGIN).toString();
 
 export async function signUp(input: { name: string; email: string; password: string }) {
 	const existing = await users.readByEmail(input.email);
 	if (existing) {
+		// The same argon2 work as a new account, so the answer's timing does not tell them apart.
+		await hashPassword(input.password);
+		// Joined before but never confirmed (the mail was lost, or the relay was down): try again.
+		if (!existing.emailVerified) return sendVerification(existing.id, existing.email);
 		await send(
 			linkLetter({
 				to: existing.email,
@@ -30,6 +37,12 @@ export async function signUp(input: { name: string; email: string; password: str
 		password: input.password
 	});
 	await sendVerification(user.id, user.email);
+}
+
+/** "Send the confirmation again": a fresh link for an account that is not confirmed yet. */
+export async function resendConfirmation(email: string) {
+	const user = await users.readByEmail(email);
+	if (user && !user.emailVerified) await sendVerification(user.id, user.email);
 }
 
 async function sendVerification(userId: string, email: string) {

@@ -1,17 +1,10 @@
 import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { ApiFailure } from './failure';
 import { apiError } from './guard';
 import { PhotoError } from './sheets/photos';
 
-export class ApiFailure extends Error {
-	constructor(
-		readonly status: number,
-		message: string,
-		readonly issues: { path: string; message: string }[] = []
-	) {
-		super(message);
-	}
-}
+export { ApiFailure };
 
 /**
  * Wraps a JSON handler so every failure answers as { error, issues } with its status: guard and

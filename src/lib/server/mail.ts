@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { env } from './env';
+import { enqueue, setDeliverer } from './mail-queue';
 
 let transport: Transporter | null = null;
 let transportUrl = '';
@@ -8,7 +9,13 @@ export function mailer(): Transporter {
 	const url = env().SMTP_URL;
 	if (!transport || transportUrl !== url) {
 		// ignoreTLS: the local fake speaks plain SMTP; a real relay URL (smtps://…) still uses TLS.
-		transport = nodemailer.createTransport(url, { ignoreTLS: url.startsWith('smtp://127.0.0.1') });
+		transport = nodemailer.createTransport(url, {
+			ignoreTLS: url.startsWith('smtp://127.0.0.1'),
+			// A relay that is down or frozen fails the attempt quickly; the queue tries again later.
+			connectionTimeout: 10_000,
+			greetingTimeout: 10_000,
+			socketTimeout: 30_000
+		});
 		transportUrl = url;
 	}
 	return transport;
@@ -22,9 +29,16 @@ export type Letter = {
 	headers?: Record<string, string>;
 };
 
-export async function send(letter: Letter): Promise<void> {
+/** Hands one letter to the relay now. Only the queue calls this; everything else calls send. */
+export async function deliver(letter: Letter): Promise<void> {
 	const result = await mailer().sendMail({ from: env().MAIL_FROM, ...letter });
 	if (result.rejected.length) throw new Error(`mail to ${letter.to} was refused`);
+}
+setDeliverer(deliver);
+
+/** Sends a letter: it is queued in the database (mail-queue.ts) and goes out from there. */
+export async function send(letter: Letter): Promise<void> {
+	await enqueue(letter);
 }
 
 export async function pingMail(): Promise<void> {

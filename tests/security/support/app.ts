@@ -88,7 +88,9 @@ export async function startApp(port: number, extra: Record<string, string> = {})
 		entry,
 		stop: async () => {
 			entry.child.kill('SIGTERM');
+			const timer = setTimeout(() => entry.child.kill('SIGKILL'), 8_000);
 			await entry.exited;
+			clearTimeout(timer);
 		}
 	};
 }

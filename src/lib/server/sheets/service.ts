@@ -7,6 +7,7 @@ import type { SetupConfig } from '../db/models/setup';
 import * as parts from '../db/parts';
 import * as runs from '../db/runs';
 import * as setups from '../db/setups';
+import { ApiFailure } from '../failure';
 import { recomputeBuild, recomputeSetup, refreshListing } from './recompute';
 
 // The build-sheet rules shared by the form actions (and, later, the JSON API).
@@ -97,7 +98,21 @@ export async function saveRun(
 	return { id: id! };
 }
 
+/**
+ * A part or photo may name the setup it was fitted in: only one of the same build's setups.
+ * Anything else (missing, another member's draft) is refused with the field named.
+ */
+export async function checkSetupOf(buildId: number, setupId: number | null): Promise<void> {
+	if (setupId === null) return;
+	const ok = Number.isInteger(setupId) && (await setups.read(buildId, setupId)) !== null;
+	if (!ok) {
+		const message = 'Choose one of this build’s setups (or none).';
+		throw new ApiFailure(422, message, [{ path: 'setupId', message }]);
+	}
+}
+
 export async function addPart(buildId: number, stored: Stored) {
+	await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
 	await parts.create(buildId, {
 		category: String(stored.category),
 		name: String(stored.name),
