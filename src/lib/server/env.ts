@@ -28,6 +28,8 @@ const schema = z.object({
 		.enum(['true', 'false'])
 		.default('true')
 		.transform((v) => v === 'true'),
+	/** Time limit of one object-store request, in ms; each is tried twice. */
+	S3_TIMEOUT_MS: z.coerce.number().int().positive().default(5000),
 	SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),
 	MAIL_FROM: z.string().default('Squishline <bench@squishline.test>'),
 	/** Folder the local fake mail server writes to; the outbox page reads it in the demo only. */

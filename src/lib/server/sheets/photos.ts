@@ -1,32 +1,62 @@
 import { randomUUID } from 'node:crypto';
-import sharp from 'sharp';
+import pLimit from 'p-limit';
+import sharp, { type Sharp } from 'sharp';
 import { models } from '../db/models';
-import { deleteObjects, putObject } from '../storage';
+import { checkSetupOf } from './service';
+import { deleteObjects, deleteLater, putObject, StorageDown } from '../storage';
 
 export const PHOTO_MAX_BYTES = 15 * 1024 * 1024;
 export const PHOTO_MAX_COUNT = 12;
+/** 50 megapixels: a full-resolution phone photo fits (8000 × 6000); decoding one takes ~200 MB. */
+export const PHOTO_MAX_PIXELS = 50_000_000;
 const FORMATS = new Set(['jpeg', 'png', 'webp', 'heif']);
 
 export class PhotoError extends Error {
 	constructor(
-		readonly status: 409 | 413 | 415 | 422,
+		readonly status: 409 | 413 | 415 | 422 | 503,
 		message: string
 	) {
 		super(message);
 	}
 }
 
-/** The upload rules shared by build photos and shop logos: size, then the type read from the bytes. */
+export const STORAGE_DOWN =
+	'Photo storage is unavailable just now, so nothing was saved. Try again in a minute.';
+
+// Decoding and re-encoding is the memory-hungry part: two images at a time per process, the
+// rest wait their turn, so a burst of large uploads cannot take the server's memory.
+const imageWork = pLimit(2);
+
+const mp = (n: number) => `${Math.round(n / 100_000) / 10} megapixels`;
+
+/** The upload rules shared by build photos and shop logos: size, type read from the bytes, pixels. */
 export async function checkImage(bytes: Uint8Array): Promise<string> {
 	if (bytes.byteLength > PHOTO_MAX_BYTES)
 		throw new PhotoError(413, 'That image is over 15 MB. Export it smaller and try again.');
 	if (bytes.byteLength === 0) throw new PhotoError(422, 'The file is empty.');
-	const meta = await sharp(bytes)
+	// The header only (no decoding), with no pixel limit, so a huge image is named as huge.
+	const meta = await sharp(bytes, { limitInputPixels: false })
 		.metadata()
 		.catch(() => null);
 	if (!meta?.format || !FORMATS.has(meta.format))
 		throw new PhotoError(415, 'That file is not a JPEG, PNG, WebP or HEIC image.');
+	const pixels = (meta.width ?? 0) * (meta.height ?? 0);
+	if (pixels > PHOTO_MAX_PIXELS)
+		throw new PhotoError(
+			413,
+			`That image is ${meta.width} × ${meta.height} pixels (${mp(pixels)}); the most we take is ${mp(PHOTO_MAX_PIXELS)}, such as 8000 × 6000. Export it smaller and try again.`
+		);
 	return meta.format;
+}
+
+/** Decodes with the pixel cap, one of the limited image slots at a time. */
+export function withImage<T>(
+	bytes: Uint8Array,
+	work: (img: Sharp) => Promise<T>
+): Promise<T> {
+	return imageWork(() =>
+		work(sharp(bytes, { failOn: 'error', limitInputPixels: PHOTO_MAX_PIXELS }))
+	);
 }
 
 /**
@@ -39,25 +69,29 @@ export async function addPhoto(
 	bytes: Uint8Array,
 	opts: { caption?: string; setupId?: number | null } = {}
 ) {
-	const { Photo } = models();
-	if ((await Photo.count({ where: { buildId } })) >= PHOTO_MAX_COUNT)
-		throw new PhotoError(409, `A build holds at most ${PHOTO_MAX_COUNT} photos. Delete one first.`);
+	const { Photo, Build } = models();
+	await checkSetupOf(buildId, opts.setupId ?? null);
+	if ((await Photo.count({ where: { buildId } })) >= PHOTO_MAX_COUNT) throw full();
 	const format = await checkImage(bytes);
 	let display: { data: Buffer; info: { width: number; height: number } };
 	let thumb: Buffer;
 	try {
-		// sharp writes no metadata unless asked to (withMetadata), so EXIF, XMP and IPTC are gone.
-		const upright = sharp(bytes, { failOn: 'error' }).rotate();
-		display = await upright
-			.clone()
-			.resize(1600, 1600, { fit: 'inside', withoutEnlargement: true })
-			.jpeg({ quality: 82, mozjpeg: true })
-			.toBuffer({ resolveWithObject: true });
-		thumb = await upright
-			.clone()
-			.resize(400, 400, { fit: 'inside', withoutEnlargement: true })
-			.jpeg({ quality: 78, mozjpeg: true })
-			.toBuffer();
+		[display, thumb] = await withImage(bytes, async (img) => {
+			// sharp writes no metadata unless asked to (withMetadata), so EXIF, XMP and IPTC are gone.
+			const upright = img.rotate();
+			return Promise.all([
+				upright
+					.clone()
+					.resize(1600, 1600, { fit: 'inside', withoutEnlargement: true })
+					.jpeg({ quality: 82, mozjpeg: true })
+					.toBuffer({ resolveWithObject: true }),
+				upright
+					.clone()
+					.resize(400, 400, { fit: 'inside', withoutEnlargement: true })
+					.jpeg({ quality: 78, mozjpeg: true })
+					.toBuffer()
+			]);
+		});
 	} catch {
 		throw new PhotoError(
 			415,
@@ -66,28 +100,43 @@ export async function addPhoto(
 	}
 	const stem = `builds/${buildId}/photos/${randomUUID()}`;
 	const keys = { displayKey: `${stem}-display.jpg`, thumbKey: `${stem}-thumb.jpg` };
-	const written: string[] = [];
 	try {
 		await putObject(keys.displayKey, display.data, 'image/jpeg');
-		written.push(keys.displayKey);
 		await putObject(keys.thumbKey, thumb, 'image/jpeg');
-		written.push(keys.thumbKey);
-		const max = (await Photo.max('position', { where: { buildId } })) as number | null;
-		return await Photo.create({
-			buildId,
-			setupId: opts.setupId ?? null,
-			position: (max ?? 0) + 1,
-			caption: (opts.caption ?? '').trim().slice(0, 300),
-			...keys,
-			width: display.info.width,
-			height: display.info.height,
-			sourceFormat: format
+		// The count is checked again under a lock on the build row: of several uploads racing for
+		// the last places, only as many as fit are kept.
+		return await Photo.sequelize!.transaction(async (transaction) => {
+			await Build.findByPk(buildId, { transaction, lock: transaction.LOCK.UPDATE });
+			if ((await Photo.count({ where: { buildId }, transaction })) >= PHOTO_MAX_COUNT) throw full();
+			const max = (await Photo.max('position', { where: { buildId }, transaction })) as
+				number | null;
+			return Photo.create(
+				{
+					buildId,
+					setupId: opts.setupId ?? null,
+					position: (max ?? 0) + 1,
+					caption: (opts.caption ?? '').trim().slice(0, 300),
+					...keys,
+					width: display.info.width,
+					height: display.info.height,
+					sourceFormat: format
+				},
+				{ transaction }
+			);
 		});
 	} catch (e) {
-		await deleteObjects(written).catch(() => undefined);
+		// Nothing stays behind: both keys go now, and again later for a write the store finishes
+		// after we gave up on it.
+		const both = [keys.displayKey, keys.thumbKey];
+		await deleteObjects(both).catch(() => undefined);
+		deleteLater(both);
+		if (e instanceof StorageDown) throw new PhotoError(503, STORAGE_DOWN);
 		throw e;
 	}
 }
+
+const full = () =>
+	new PhotoError(409, `A build holds at most ${PHOTO_MAX_COUNT} photos. Delete one first.`);
 
 export async function listPhotos(buildId: number) {
 	return models().Photo.findAll({ where: { buildId }, order: [['position', 'ASC']] });
@@ -110,6 +159,7 @@ export async function updatePhoto(
 	id: number,
 	patch: { caption?: string; setupId?: number | null }
 ) {
+	if (patch.setupId !== undefined) await checkSetupOf(buildId, patch.setupId);
 	const [n] = await models().Photo.update(patch, { where: { id, buildId } });
 	return n === 1;
 }

@@ -1,8 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import sharp from 'sharp';
 import type { Shop } from '../db/models';
-import { checkImage, PhotoError } from '../sheets/photos';
-import { deleteObjects, putObject } from '../storage';
+import { checkImage, PhotoError, STORAGE_DOWN, withImage } from '../sheets/photos';
+import { deleteLater, deleteObjects, putObject, StorageDown } from '../storage';
 
 /**
  * A shop's logo under the same rules as build photos (15 MB, JPEG, PNG, WebP or HEIC read from
@@ -13,19 +12,29 @@ export async function setLogo(shop: Shop, bytes: Uint8Array): Promise<void> {
 	await checkImage(bytes);
 	let data: Buffer;
 	try {
-		data = await sharp(bytes, { failOn: 'error' })
-			.rotate()
-			.resize(320, 320, { fit: 'inside', withoutEnlargement: true })
-			.flatten({ background: '#fbf8f1' })
-			.jpeg({ quality: 85, mozjpeg: true })
-			.toBuffer();
+		data = await withImage(bytes, (img) =>
+			img
+				.rotate()
+				.resize(320, 320, { fit: 'inside', withoutEnlargement: true })
+				.flatten({ background: '#fbf8f1' })
+				.jpeg({ quality: 85, mozjpeg: true })
+				.toBuffer()
+		);
 	} catch {
 		throw new PhotoError(415, 'We could not read that image.');
 	}
 	const key = `shops/${shop.id}/logo-${randomUUID()}.jpg`;
-	await putObject(key, data, 'image/jpeg');
-	const old = shop.logoKey;
-	await shop.update({ logoKey: key });
+	const previous = shop.logoKey;
+	try {
+		await putObject(key, data, 'image/jpeg');
+		await shop.update({ logoKey: key });
+	} catch (e) {
+		await deleteObjects([key]).catch(() => undefined);
+		deleteLater([key]);
+		if (e instanceof StorageDown) throw new PhotoError(503, STORAGE_DOWN);
+		throw e;
+	}
+	const old = previous;
 	if (old) await deleteObjects([old]).catch(() => undefined);
 }
 

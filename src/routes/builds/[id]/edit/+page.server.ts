@@ -1,7 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { message, superValidate } from 'sveltekit-superforms';
+import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import * as builds from '$lib/server/db/builds';
+import { ApiFailure } from '$lib/server/failure';
 import * as parts from '$lib/server/db/parts';
 import * as runs from '$lib/server/db/runs';
 import * as setups from '$lib/server/db/setups';
@@ -92,7 +93,13 @@ export const actions: Actions = {
 		const { build } = await mine(event);
 		const { form, stored } = await readSheetForm(event.request, 'part', PART_FIELDS, 'complete');
 		if (!form.valid) return fail(400, { partForm: form });
-		await addPart(build.id, stored);
+		try {
+			await addPart(build.id, stored);
+		} catch (e) {
+			if (e instanceof ApiFailure)
+				return setError(form, 'setupId' as never, e.message, { status: 422 });
+			throw e;
+		}
 		redirect(303, `/builds/${build.id}/edit#parts`);
 	},
 	removePart: async (event) => {
@@ -114,7 +121,7 @@ export const actions: Actions = {
 				setupId: Number(fd.get('setupId')) || null
 			});
 		} catch (e) {
-			if (e instanceof PhotoError)
+			if (e instanceof PhotoError || e instanceof ApiFailure)
 				return fail(e.status, {
 					photoProblem: e.message,
 					caption: String(fd.get('caption') ?? '')
@@ -126,12 +133,17 @@ export const actions: Actions = {
 	updatePhoto: async (event) => {
 		const { build } = await mine(event);
 		const fd = await event.request.formData();
-		await updatePhoto(build.id, Number(fd.get('photoId')), {
-			caption: String(fd.get('caption') ?? '')
-				.trim()
-				.slice(0, 300),
-			setupId: Number(fd.get('setupId')) || null
-		});
+		try {
+			await updatePhoto(build.id, Number(fd.get('photoId')), {
+				caption: String(fd.get('caption') ?? '')
+					.trim()
+					.slice(0, 300),
+				setupId: Number(fd.get('setupId')) || null
+			});
+		} catch (e) {
+			if (e instanceof ApiFailure) return fail(e.status, { photoProblem: e.message });
+			throw e;
+		}
 		redirect(303, `/builds/${build.id}/edit#photos`);
 	},
 	movePhoto: async (event) => {

@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { viewShop } from '$lib/server/shops/pages';
-import { getObject } from '$lib/server/storage';
+import { getObjectForReader } from '$lib/server/storage';
 import type { RequestHandler } from './$types';
 
 // Served through the app so a page the desk took down takes its logo with it.
@@ -8,7 +8,7 @@ export const GET: RequestHandler = async (event) => {
 	const id = Number(event.params.id);
 	if (!Number.isInteger(id) || id <= 0) error(404, 'No such shop.');
 	const { shop } = await viewShop(id, event.locals.user);
-	const obj = shop.logoKey ? await getObject(shop.logoKey) : null;
+	const obj = shop.logoKey ? await getObjectForReader(shop.logoKey) : null;
 	if (!obj) error(404, 'No logo.');
 	return new Response(obj.body, {
 		headers: {

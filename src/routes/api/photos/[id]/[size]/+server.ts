@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { readBuild } from '$lib/server/sheets/access';
 import { readPhoto } from '$lib/server/sheets/photos';
-import { getObject } from '$lib/server/storage';
+import { getObjectForReader } from '$lib/server/storage';
 import type { RequestHandler } from './$types';
 
 // Photos are served through the app, so a draft's photos follow the draft's access rule: others get 404.
@@ -10,7 +10,9 @@ export const GET: RequestHandler = async (event) => {
 	if (!photo || !['display', 'thumb'].includes(event.params.size)) error(404, 'No such photo.');
 	const { build } = await readBuild(event, photo.buildId);
 	const open = build.publication === 'published' && build.moderation === 'visible';
-	const obj = await getObject(event.params.size === 'thumb' ? photo.thumbKey : photo.displayKey);
+	const obj = await getObjectForReader(
+		event.params.size === 'thumb' ? photo.thumbKey : photo.displayKey
+	);
 	if (!obj) error(404, 'No such photo.');
 	return new Response(obj.body, {
 		headers: {
