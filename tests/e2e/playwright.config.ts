@@ -29,5 +29,14 @@ export default defineConfig({
 			]
 		}
 	},
-	projects: [{ name: 'chromium', use: { browserName: 'chromium' } }]
+	projects: [
+		{ name: 'chromium', use: { browserName: 'chromium' } },
+		// The security suite's browser checks live beside its server checks.
+		{
+			name: 'security',
+			testDir: '../security',
+			testMatch: /\.spec\.ts$/,
+			use: { browserName: 'chromium' }
+		}
+	]
 });

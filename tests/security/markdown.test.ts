@@ -22,6 +22,11 @@ describe('renderMarkdown allow-list', () => {
 		expect(out).not.toMatch(/<(form|input|button|iframe|object|svg|math)/);
 	});
 
+	it('shows a frameset document as text rather than failing the page', () => {
+		const out = renderMarkdown('<frameset onload=alert(1)>');
+		expect(out).toBe('<p>&#60;frameset onload=alert(1)&#62;</p>');
+	});
+
 	it('marks links as user content and drops script URLs', () => {
 		const out = renderMarkdown('[pipe notes](https://example.org/a) [x](javascript:alert(1))');
 		expect(out).toContain('href="https://example.org/a"');

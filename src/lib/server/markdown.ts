@@ -36,6 +36,8 @@ export function renderMarkdown(source: string): string {
 		ALLOW_ARIA_ATTR: false,
 		RETURN_DOM_FRAGMENT: true
 	});
+	// A document DOMPurify cannot give a body to (a <frameset>, say) is shown as the text it is.
+	if (!fragment) return `<p>${escapeText(source ?? '')}</p>`;
 	const doc = fragment.ownerDocument;
 	for (const img of [...fragment.querySelectorAll('img')]) {
 		const own = ownImagePath(img.getAttribute('src') ?? '');
@@ -60,3 +62,6 @@ export function renderMarkdown(source: string): string {
 	box.appendChild(fragment);
 	return box.innerHTML;
 }
+
+const escapeText = (s: string) =>
+	s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`).replace(/\n/g, '<br>');
