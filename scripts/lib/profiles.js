@@ -83,7 +83,11 @@ export function stackEnv(name, outer = process.env) {
 		// The SDK is pinned to a release that supports Node 20; its reminder about Node 22 is noise here.
 		AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:
 			outer.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
-		FRESH_DB: name === 'test' && outer.KEEP_TEST_DB !== '1' ? '1' : ''
+		FRESH_DB: name === 'test' && outer.KEEP_TEST_DB !== '1' ? '1' : '',
+		// Every browser test signs in from 127.0.0.1; the security suite checks the real limit
+		// on a production entry of its own.
+		SIGNIN_ATTEMPTS_PER_ADDRESS:
+			name === 'test' ? '1000' : (outer.SIGNIN_ATTEMPTS_PER_ADDRESS ?? '')
 	};
 	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
 	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;

@@ -26,6 +26,8 @@ const p = (i: number, max = 500) => PAYLOADS[i % N].slice(0, max);
 
 type Seeded = {
 	builds: number[];
+	commentIds: number[];
+	moderatorId: string;
 	shops: number[];
 	owner: { email: string; password: string };
 	moderator: { email: string; password: string };
@@ -105,7 +107,24 @@ async function seed(): Promise<Seeded> {
 		});
 		shops.push(shop.id);
 	}
-	return { builds: ids, shops, owner: ownerRows[0], moderator: mod };
+	return {
+		builds: ids,
+		shops,
+		owner: ownerRows[0],
+		moderator: mod,
+		moderatorId: mod.id,
+		commentIds
+	};
+}
+
+/** Clears the cases this suite opened, so the desk other tests use shows theirs first. */
+async function closeOpenCases(s: Seeded) {
+	const me = await asCurrent(s.moderatorId);
+	const open = await db().query<{ id: number }>(
+		"SELECT id FROM review_cases WHERE item_type = 'comment' AND item_id IN (?) AND on_desk = 1",
+		{ replacements: [s.commentIds], type: QueryTypes.SELECT }
+	);
+	for (const c of open) await decide(me, c.id, { action: 'dismiss', reason: '' }, new Date());
 }
 
 /** Counts dialogs and flag writes; installed before any page script. */
@@ -228,6 +247,10 @@ test("the owner's bench and the review desk with notes and public reasons", asyn
 	await signInWithPassword(page, seeded.moderator.email, seeded.moderator.password, '/review');
 	await page.waitForURL('**/review');
 	await visit(page, hits, ['/review', '/review/log', '/review/log?order=oldest']);
+});
+
+test.afterAll(async () => {
+	if (seeded) await closeOpenCases(seeded);
 });
 
 test('the checks themselves notice a handler, a script URL, a run script and an overlay', async ({
