@@ -50,10 +50,7 @@ export async function checkImage(bytes: Uint8Array): Promise<string> {
 }
 
 /** Decodes with the pixel cap, one of the limited image slots at a time. */
-export function withImage<T>(
-	bytes: Uint8Array,
-	work: (img: Sharp) => Promise<T>
-): Promise<T> {
+export function withImage<T>(bytes: Uint8Array, work: (img: Sharp) => Promise<T>): Promise<T> {
 	return imageWork(() =>
 		work(sharp(bytes, { failOn: 'error', limitInputPixels: PHOTO_MAX_PIXELS }))
 	);
