@@ -46,6 +46,7 @@ describe('GET /api/health', () => {
 		expect(body.services.database.up).toBe(true);
 		expect(body.services['object store'].up).toBe(true);
 		expect(body.services['mail server'].up).toBe(true);
+		expect(body.mailWaiting).toBeTypeOf('number');
 	});
 
 	it('asks the mail relay at most once a minute, however often it is probed', async () => {

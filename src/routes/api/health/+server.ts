@@ -1,6 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { roleAllows } from '$lib/roles';
 import { checkHealth } from '$lib/server/health';
+import { pendingCount } from '$lib/server/mail-queue';
 import type { RequestHandler } from './$types';
 
 // Public on purpose: load balancers and the start script poll it. The public answer is a bare
@@ -11,8 +12,12 @@ export const GET: RequestHandler = async ({ locals }) => {
 	const headers = { 'cache-control': 'no-store' };
 	if (!locals.user || !roleAllows(locals.user.role, 'admin'))
 		return json({ status: health.status }, { status, headers });
-	const body = health.down.length
-		? { ...health, error: `down: ${health.down.join(', ')}` }
-		: health;
+	// Letters waiting for the relay: a growing number means mail is not going out.
+	const mailWaiting = health.services.database.up ? await pendingCount() : null;
+	const body = {
+		...health,
+		mailWaiting,
+		...(health.down.length ? { error: `down: ${health.down.join(', ')}` } : {})
+	};
 	return json(body, { status, headers });
 };
