@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { run } from './proc.js';
 import { ROOT, STACK_KEYS } from './profiles.js';
+import { retriedTests } from './retried.js';
 
 const readJson = (file) => {
 	try {
@@ -42,36 +43,15 @@ async function playwright(env) {
 		['node_modules/@playwright/test/cli.js', 'test', '--config', 'tests/e2e/playwright.config.ts'],
 		{ cwd: ROOT, env: { ...env, E2E_BASE_URL: env.ORIGIN, E2E_JSON: out } }
 	);
-	const s = readJson(out)?.stats;
+	const report = readJson(out);
+	const s = report?.stats;
 	return {
 		name: 'browser',
 		code,
 		passed: s ? s.expected + s.flaky : 0,
-		failed: s ? s.unexpected : 1
+		failed: s ? s.unexpected : 1,
+		retried: report ? retriedTests(report) : []
 	};
-}
-
-/** `npm run perf -- --quick` on its own small stack: checks it runs and writes well-formed figures, not its timings. */
-async function perfSmoke(env) {
-	console.log('\n▸ benchmark smoke run (npm run perf -- --quick)');
-	const clean = Object.fromEntries(Object.entries(env).filter(([k]) => !STACK_KEYS.includes(k)));
-	const code = await run(process.execPath, ['scripts/stack.js', 'perf', '--quick'], {
-		cwd: ROOT,
-		env: clean
-	});
-	const r = readJson(path.join(ROOT, '.data/perf-quick.json'));
-	const ok =
-		code === 0 &&
-		r?.builds === 1000 &&
-		[
-			r.closeBuilds?.p50Ms,
-			r.closeBuilds?.p95Ms,
-			r.naive?.p50Ms,
-			r.ratioNaiveOverOurs,
-			...['list', 'speedMap', 'changeEffects', 'search'].flatMap((k) => [r[k]?.p50Ms, r[k]?.p95Ms])
-		].every(Number.isFinite);
-	if (!ok) console.error('✗ the benchmark smoke run failed or wrote malformed figures');
-	return { name: 'perf smoke', code: ok ? 0 : 1, passed: ok ? 1 : 0, failed: ok ? 0 : 1 };
 }
 
 export async function runSuites({ env, build, startApp }) {
@@ -84,7 +64,10 @@ export async function runSuites({ env, build, startApp }) {
 	results.push(await playwright(env));
 
 	console.log('\n▸ summary');
-	for (const r of results) console.log(`  ${r.name}: ${r.passed} passed, ${r.failed} failed`);
+	for (const r of results) {
+		console.log(`  ${r.name}: ${r.passed} passed, ${r.failed} failed`);
+		for (const t of r.retried ?? []) console.log(`    needed a retry: ${t}`);
+	}
 	const passed = results.reduce((n, r) => n + r.passed, 0);
 	const failed = results.reduce((n, r) => n + r.failed, 0);
 	const bad = results.some((r) => r.code !== 0) || failed > 0;

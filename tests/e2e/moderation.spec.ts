@@ -1,6 +1,6 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { publishedBuild } from '../support/moderation-fixtures';
-import { makeUser, openNewestMail, signInWithPassword } from './support';
+import { makeUser, open, openNewestMail, signInWithPassword } from './support';
 
 // The whole path of one unsafe comment through the review desk, each person in their own browser.
 
@@ -29,7 +29,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 
 	// The author gives advice the desk will not keep.
 	const a = await as(browser, author);
-	await a.goto(`/builds/${build.id}#comments`);
+	await open(a, `/builds/${build.id}#comments`);
 	await a.getByLabel(/Your comment/).fill('Unbolt the front caliper, it only costs you top speed.');
 	await a.getByRole('button', { name: 'Post the comment' }).click();
 	const mine = a.getByRole('article', { name: /Comment by/ }).first();
@@ -38,7 +38,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 
 	// Another member reports it as unsafe.
 	const r = await as(browser, reporter);
-	await r.goto(`/builds/${build.id}#comments`);
+	await open(r, `/builds/${build.id}#comments`);
 	await r
 		.locator(`#comment-${commentId}`)
 		.getByRole('link', { name: /Report/ })
@@ -53,7 +53,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 
 	// The moderator triages it, then takes it down with a reason.
 	const m = await as(browser, moderator);
-	await m.goto('/review');
+	await open(m, '/review');
 	let card = caseCard(m, title);
 	await expect(card).toContainText('Tells people to ride without a front brake.');
 	await card.getByRole('button', { name: 'Triage as a concern' }).click();
@@ -63,7 +63,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 	await expect(card).toHaveCount(0);
 
 	// Readers see the reason in place of the words.
-	await r.goto(`/builds/${build.id}?after=hide`);
+	await open(r, `/builds/${build.id}?after=hide`);
 	const shown = r.locator(`#comment-${commentId}`);
 	await expect(shown).toContainText(
 		'Taken down by the review desk: advice to ride without a front brake'
@@ -74,7 +74,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 	const mail = await (await browser.newContext()).newPage();
 	await openNewestMail(mail, author.email, /Review desk: .*comment on/);
 	await expect(mail.locator('main')).toContainText('advice to ride without a front brake');
-	await a.goto(`/builds/${build.id}#comments`);
+	await open(a, `/builds/${build.id}#comments`);
 	const hidden = a.locator(`#comment-${commentId}`);
 	await hidden.getByText('Change', { exact: true }).click();
 	await hidden
@@ -86,16 +86,16 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 	await expect(hidden).toContainText('You asked for another look');
 
 	// The moderator puts it back.
-	await m.goto('/review');
+	await open(m, '/review');
 	card = caseCard(m, title);
 	await expect(card).toContainText('asks for another look');
 	await card.getByRole('button', { name: 'Put back' }).click();
 	await expect(card).toHaveCount(0);
-	await r.goto(`/builds/${build.id}?after=restore`);
+	await open(r, `/builds/${build.id}?after=restore`);
 	await expect(r.locator(`#comment-${commentId}`)).toContainText('torqued to spec');
 
 	// The log holds the four steps in the order they happened.
-	await m.goto(`/review/log?itemType=comment&itemId=${commentId}&order=oldest`);
+	await open(m, `/review/log?itemType=comment&itemId=${commentId}&order=oldest`);
 	const actions = await m
 		.getByTestId('log-row')
 		.locator('td[data-action]')

@@ -17,13 +17,24 @@ export function demoAccount(role: 'member' | 'moderator' | 'shop' | 'admin') {
 	return { email: p.email, name: p.name, password: demo.passwords[role] };
 }
 
+/** Waits until the page is hydrated: typing earlier is lost when hydration resets the fields. */
+export async function hydrated(page: Page) {
+	await page.locator('html[data-hydrated]').waitFor({ state: 'attached' });
+}
+
+/** page.goto, then wait for hydration before the test types anything. */
+export async function open(page: Page, url: string) {
+	await page.goto(url);
+	await hydrated(page);
+}
+
 export async function signInWithPassword(
 	page: Page,
 	email: string,
 	password: string,
 	next?: string
 ) {
-	await page.goto(next ? `/signin?next=${encodeURIComponent(next)}` : '/signin');
+	await open(page, next ? `/signin?next=${encodeURIComponent(next)}` : '/signin');
 	const form = page.getByRole('form', { name: 'With your password' });
 	await form.getByLabel('E-mail').fill(email);
 	await form.getByLabel('Password').fill(password);

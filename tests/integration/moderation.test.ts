@@ -162,15 +162,39 @@ describe('reports, flags and the caution banner', () => {
 		const [a, b, c] = await Promise.all([makeUser(), makeUser(), makeUser()]);
 		const now = new Date();
 		const unsafe = { reason: 'unsafe' as const, note: 'no front brake' };
-		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({ filed: true, caution: false });
-		// The same person again: nothing added.
 		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({
-			filed: false,
+			filed: true,
+			added: false,
+			caution: false
+		});
+		// The same person again: added to their open report, still one reporter.
+		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({
+			filed: true,
+			added: true,
 			caution: false
 		});
 		expect((await fileReport(asUser(b), ref, unsafe, now)).caution).toBe(false);
 		expect((await fileReport(asUser(c), ref, unsafe, now)).caution).toBe(true);
 		expect(await models().Report.count({ where: { itemType: 'build', itemId: build.id } })).toBe(3);
+	});
+
+	it('a second report while the first is open adds its note and takes its reason', async () => {
+		const owner = await makeUser();
+		const { build } = await publishedBuild(owner.id);
+		const ref = { type: 'build' as const, id: build.id };
+		const r = asUser(await makeUser());
+		await fileReport(r, ref, { reason: 'unsafe', note: '' }, new Date());
+		const second = await fileReport(
+			r,
+			ref,
+			{ reason: 'wrong-data', note: 'The jet size is for a different carb.' },
+			new Date()
+		);
+		expect(second).toMatchObject({ filed: true, added: true });
+		const rows = await models().Report.findAll({ where: { itemType: 'build', itemId: build.id } });
+		expect(rows).toHaveLength(1);
+		expect(rows[0].reason).toBe('wrong-data');
+		expect(rows[0].note).toBe('The jet size is for a different carb.');
 	});
 
 	it('a triage raises it after a single report', async () => {

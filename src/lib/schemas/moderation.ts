@@ -5,7 +5,8 @@ import {
 	ITEM_TYPES,
 	REASON_MAX,
 	REPORT_NOTE_MAX,
-	REPORT_REASONS
+	REPORT_REASONS,
+	type ReportReason
 } from '../moderation/kinds';
 
 const id = z.coerce.number().int().positive();
@@ -33,7 +34,12 @@ export const itemRefSchema = z.object({
 });
 
 export const reportSchema = itemRefSchema.extend({
-	reason: z.enum(REPORT_REASONS, { error: 'Pick a reason.' }),
+	// No default: a form that starts with a reason chosen files it on one careless tap.
+	reason: z
+		.enum(['', ...REPORT_REASONS], { error: 'Pick what is wrong with it.' })
+		.default('')
+		.refine((r) => r !== '', 'Pick what is wrong with it.')
+		.transform((r) => r as ReportReason),
 	note: z
 		.string()
 		.trim()

@@ -53,9 +53,9 @@ export const actions: Actions = {
 		);
 		return message(
 			form,
-			r.filed
-				? 'Thank you. The review desk will look at it; one report never takes anything down by itself.'
-				: 'You have already reported this and the desk has not decided yet. Nothing was added.'
+			r.added
+				? 'Thank you. We added this to your earlier report, which the desk has not decided yet.'
+				: 'Thank you. The review desk will look at it; one report never takes anything down by itself.'
 		);
 	}
 };

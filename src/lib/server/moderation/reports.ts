@@ -1,16 +1,16 @@
 import { error } from '@sveltejs/kit';
 import { UniqueConstraintError } from 'sequelize';
-import type { ReportReason } from '../../moderation/kinds';
+import { REPORT_NOTE_MAX, type ReportReason } from '../../moderation/kinds';
 import type { CurrentUser } from '../auth/current-user';
 import { models } from '../db/models';
 import { openCase, refreshCaution } from './cases';
 import { requireItem, type ItemRef } from './items';
 
-export type ReportResult = { filed: boolean; caution: boolean };
+export type ReportResult = { filed: boolean; added: boolean; caution: boolean };
 
 /**
- * Files a member's report. One open report per person per item (the database keeps it so):
- * a second one changes nothing and says so.
+ * Files a member's report. One open report per person per item (the database keeps it so): a
+ * second one while the first is open adds its note to it and takes its reason.
  */
 export async function fileReport(
 	me: CurrentUser,
@@ -31,9 +31,26 @@ export async function fileReport(
 			createdAt: now
 		});
 	} catch (e) {
-		if (e instanceof UniqueConstraintError) return { filed: false, caution: false };
-		throw e;
+		if (!(e instanceof UniqueConstraintError)) throw e;
+		// Their report is still open: what they send now is added to it (the reason they chose
+		// last counts), rather than refused.
+		await addToOpenReport(me.id, ref, input);
+		return { filed: true, added: true, caution: await refreshCaution(ref) };
 	}
 	await openCase(ref, item.authorId, now);
-	return { filed: true, caution: await refreshCaution(ref) };
+	return { filed: true, added: false, caution: await refreshCaution(ref) };
+}
+
+async function addToOpenReport(
+	reporterId: string,
+	ref: ItemRef,
+	input: { reason: ReportReason; note: string }
+) {
+	const { Report } = models();
+	const open = await Report.findOne({
+		where: { itemType: ref.type, itemId: ref.id, reporterId, status: 'open' }
+	});
+	if (!open) return;
+	const note = [open.note, input.note].filter((n) => n.trim()).join('\n\n');
+	await open.update({ reason: input.reason, note: note.slice(0, REPORT_NOTE_MAX) });
 }

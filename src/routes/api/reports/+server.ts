@@ -21,5 +21,5 @@ export const POST: RequestHandler = api(async (event) => {
 		{ reason: body.reason, note: body.note },
 		clock()
 	);
-	return created({ filed: r.filed });
+	return created({ filed: r.filed, addedToEarlier: r.added });
 });
