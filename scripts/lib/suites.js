@@ -54,6 +54,29 @@ async function playwright(env) {
 	};
 }
 
+/** `npm run perf -- --quick` on its own small stack: checks it runs and writes well-formed figures, not its timings. */
+async function perfSmoke(env) {
+	console.log('\n▸ benchmark smoke run (npm run perf -- --quick)');
+	const clean = Object.fromEntries(Object.entries(env).filter(([k]) => !STACK_KEYS.includes(k)));
+	const code = await run(process.execPath, ['scripts/stack.js', 'perf', '--quick'], {
+		cwd: ROOT,
+		env: clean
+	});
+	const r = readJson(path.join(ROOT, '.data/perf-quick.json'));
+	const ok =
+		code === 0 &&
+		r?.builds === 1000 &&
+		[
+			r.closeBuilds?.p50Ms,
+			r.closeBuilds?.p95Ms,
+			r.naive?.p50Ms,
+			r.ratioNaiveOverOurs,
+			...['list', 'speedMap', 'changeEffects', 'search'].flatMap((k) => [r[k]?.p50Ms, r[k]?.p95Ms])
+		].every(Number.isFinite);
+	if (!ok) console.error('✗ the benchmark smoke run failed or wrote malformed figures');
+	return { name: 'perf smoke', code: ok ? 0 : 1, passed: ok ? 1 : 0, failed: ok ? 0 : 1 };
+}
+
 export async function runSuites({ env, build, startApp }) {
 	const results = [await vitest('unit', env)];
 	// Built before the server-side suites: the security suite starts the production entry on it.
