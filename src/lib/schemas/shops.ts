@@ -27,7 +27,11 @@ export const linkRequestSchema = z.object({
 });
 export const linkRefSchema = z.object({ linkId: id });
 
-export const transferSchema = z.object({ buildId: id, email });
+const chosenSheet = z.coerce
+	.number({ error: 'Choose the sheet to hand over.' })
+	.int()
+	.positive('Choose the sheet to hand over.');
+export const transferSchema = z.object({ buildId: chosenSheet, email });
 export const transferRefSchema = z.object({ transferId: id });
 
 export const messageSchema = z.object({
