@@ -4,10 +4,12 @@ import * as builds from '../db/builds';
 import * as runs from '../db/runs';
 import * as setups from '../db/setups';
 import { requireUser } from '../guard';
+import { takenDownMessage } from '../../moderation/taken-down';
 
 /**
  * Who sees a build: anyone when published and visible; its owner always; an admin always; a
- * moderator also when hidden. Everyone else gets 404, so a draft's existence is not revealed.
+ * moderator also when hidden. Others get 410 with the desk's public reason for a build taken
+ * down, and 404 for anything else, so a draft's existence is not revealed.
  */
 export async function readBuild(event: RequestEvent, id: number) {
 	const b = await builds.read(id);
@@ -21,7 +23,13 @@ export async function readBuild(event: RequestEvent, id: number) {
 			(b.moderation === 'hidden' &&
 				b.publication === 'published' &&
 				roleAllows(me.role, 'moderator')));
-	if (!open && !mine && !staff) error(404, 'No such build.');
+	if (!open && !mine && !staff) {
+		// A published build the desk took down: readers are told so, with the public reason, as
+		// for a comment. A draft stays a plain 404, so its existence is not revealed.
+		if (b.publication === 'published' && b.moderation === 'hidden')
+			error(410, takenDownMessage(b.hiddenReason));
+		error(404, 'No such build.');
+	}
 	return { build: b, canEdit: Boolean(mine || (me && roleAllows(me.role, 'admin'))) };
 }
 
