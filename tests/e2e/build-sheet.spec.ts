@@ -124,7 +124,7 @@ test.describe('without JavaScript', () => {
 	test.use({ javaScriptEnabled: false });
 	test('the sheet can still be created and saved', async ({ page }) => {
 		const u = await makeUser();
-		await signInWithPassword(page, u.email, u.password, '/builds/new');
+		await signInWithPassword(page, u.email, u.password, '/builds/new', false);
 		await page.getByLabel('Title').fill('No-script build');
 		await page.getByRole('button', { name: 'Save draft and add the first setup' }).click();
 		await expect(page.getByRole('heading', { name: 'The first setup' })).toBeVisible();

@@ -32,9 +32,13 @@ export async function signInWithPassword(
 	page: Page,
 	email: string,
 	password: string,
-	next?: string
+	next?: string,
+	/** false in a context with JavaScript turned off: nothing hydrates there. */
+	scripts = true
 ) {
-	await open(page, next ? `/signin?next=${encodeURIComponent(next)}` : '/signin');
+	const url = next ? `/signin?next=${encodeURIComponent(next)}` : '/signin';
+	if (scripts) await open(page, url);
+	else await page.goto(url);
 	const form = page.getByRole('form', { name: 'With your password' });
 	await form.getByLabel('E-mail').fill(email);
 	await form.getByLabel('Password').fill(password);

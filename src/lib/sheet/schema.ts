@@ -11,7 +11,8 @@ const nice = (x: number) => Number(x.toFixed(3));
 function numberSchema(f: Field, units: Units) {
 	const lo = f.dim ? toShown(f.min!, f.dim, units) : f.min!;
 	const hi = f.dim ? toShown(f.max!, f.dim, units) : f.max!;
-	const unit = f.dim ? UNIT[f.dim][units] : (f.unit ?? '');
+	// "size" marks a number that is a size in its own right (a tyre's rim): no unit to print.
+	const unit = f.dim ? UNIT[f.dim][units] : f.unit && f.unit !== 'size' ? f.unit : '';
 	const msg = `Between ${nice(lo)} and ${nice(hi)}${unit ? ' ' + unit : ''}.`;
 	// Rounding slack so a value converted for display converts back inside the range.
 	const slack = f.dim ? 10 ** -PLACES[f.dim][units] : 0;

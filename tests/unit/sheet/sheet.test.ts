@@ -75,3 +75,14 @@ describe('setup diff', () => {
 		expect(diffSetups(a, b, 'imperial')[0]).toMatchObject({ from: '1.5748 in', to: '1.8504 in' });
 	});
 });
+
+describe('range messages', () => {
+	it('say no unit for a jet size (unit "size"), and the unit where there is one', async () => {
+		const { schemaFor } = await import('../../../src/lib/sheet/schema');
+		const { SETUP_FIELDS } = await import('../../../src/lib/sheet/setup-fields');
+		const schema = schemaFor('setup', SETUP_FIELDS, 'metric');
+		const r = schema.safeParse({ mainJet: 20 });
+		const issue = r.success ? null : r.error.issues.find((i) => i.path[0] === 'mainJet');
+		expect(issue?.message).toBe('Between 40 and 300.');
+	});
+});

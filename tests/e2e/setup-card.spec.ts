@@ -1,0 +1,27 @@
+import { expect, test } from '@playwright/test';
+import * as builds from '../../src/lib/server/db/builds';
+import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
+import { makeUser } from './support';
+
+test('a setup card reads as words: a space around "·", and no two-way legend without a two-way run', async ({
+	page
+}) => {
+	const owner = await makeUser();
+	const b = await builds.create(owner.id, {
+		title: `One-way runs ${Date.now()}`,
+		chassis: 'Test frame',
+		engineFamily: 'fixture family'
+	});
+	const s = (await saveSetup(b.id, { ...FIXTURE_SETUP, isStock: true, changeNote: 'Stock' })) as {
+		id: number;
+	};
+	await saveRun(b.id, s.id, { ...fixtureRun(50.7), twoWay: false });
+	await setPublication((await builds.read(b.id))!, 'published');
+
+	await page.goto(`/builds/${b.id}`);
+	const card = page.getByRole('article', { name: /1\. Stock/ });
+	await expect(card).toContainText(/stock baseline · best 50\.7 km\/h/);
+	await expect(card).not.toContainText('two-way average');
+	await expect(page.getByText(/switch to imperial/)).not.toContainText('imperial(');
+});
