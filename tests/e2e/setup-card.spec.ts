@@ -2,7 +2,7 @@ import { expect, test } from '@playwright/test';
 import * as builds from '../../src/lib/server/db/builds';
 import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
-import { makeUser } from './support';
+import { makeUser, signInWithPassword } from './support';
 
 test('a setup card reads as words: a space around "·", and no two-way legend without a two-way run', async ({
 	page
@@ -23,5 +23,11 @@ test('a setup card reads as words: a space around "·", and no two-way legend wi
 	const card = page.getByRole('article', { name: /1\. Stock/ });
 	await expect(card).toContainText(/stock baseline · best 50\.7 km\/h/);
 	await expect(card).not.toContainText('two-way average');
-	await expect(page.getByText(/switch to imperial/)).not.toContainText('imperial(');
+
+	// The units switch with its warning reads "imperial (unsaved …", not "imperial(unsaved".
+	await signInWithPassword(page, owner.email, owner.password, '/builds/new');
+	await page.waitForURL('**/builds/new');
+	await expect(page.getByText(/Showing/)).toContainText(
+		'switch to imperial (unsaved changes on this page are lost)'
+	);
 });
