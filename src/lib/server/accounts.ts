@@ -2,6 +2,7 @@ import * as tokens from './auth/email-tokens';
 import { hashPassword } from './auth/password';
 import { liftAccountLock } from './auth/password-signin';
 import { endAllSessions } from './auth/sessions';
+import { db } from './db/connection';
 import * as users from './db/users';
 import { env } from './env';
 import { linkLetter, send } from './mail';
@@ -81,14 +82,23 @@ export async function requestReset(email: string) {
 	);
 }
 
+/**
+ * One transaction: the link is spent, the password set, the address confirmed and every older
+ * session ended together, or none of it (a half-done reset could leave a thief signed in).
+ */
 export async function resetPassword(token: string, password: string) {
-	const used = await tokens.consume(token, 'reset');
+	const used = await db().transaction(async (t) => {
+		const used = await tokens.consume(token, 'reset', t);
+		if (!used.ok) return used;
+		await users.setPassword(used.userId, password, t);
+		// Following the mailed link proves the address, as a verification link would.
+		await users.markVerified(used.userId, t);
+		// Whoever had the old password (or a session made with it) is out.
+		await endAllSessions(used.userId, t);
+		return used;
+	});
 	if (!used.ok) return used;
-	await users.setPassword(used.userId, password);
-	// Following the mailed link proves the address, as a verification link would.
-	await users.markVerified(used.userId);
-	// Whoever had the old password (or a session made with it) is out; the owner is let back in.
-	await endAllSessions(used.userId);
+	// The owner is let back in.
 	const user = await users.read(used.userId);
 	if (user) await liftAccountLock(user.email);
 	return used;

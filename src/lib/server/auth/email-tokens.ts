@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { models } from '../db/models';
 import type { EmailTokenPurpose } from '../db/models/email-token';
 
@@ -35,13 +35,23 @@ export async function inspect(token: string, purpose: EmailTokenPurpose): Promis
 }
 
 /** Spends a token atomically: of two concurrent uses, only one succeeds. */
-export async function consume(token: string, purpose: EmailTokenPurpose): Promise<TokenCheck> {
+export async function consume(
+	token: string,
+	purpose: EmailTokenPurpose,
+	transaction?: Transaction
+): Promise<TokenCheck> {
 	const check = await inspect(token, purpose);
 	if (!check.ok) return check;
 	const [n] = await models().EmailToken.update(
 		{ usedAt: new Date() },
 		{
-			where: { tokenHash: digest(token), purpose, usedAt: null, expiresAt: { [Op.gt]: new Date() } }
+			where: {
+				tokenHash: digest(token),
+				purpose,
+				usedAt: null,
+				expiresAt: { [Op.gt]: new Date() }
+			},
+			transaction
 		}
 	);
 	return n === 1 ? check : { ok: false, reason: 'used' };

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { QueryTypes } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db/connection';
 
 // Sessions stay JWTs (password sign-in needs them), but each carries two claims the database can
@@ -43,9 +43,10 @@ export async function endSession(sid: unknown, expiresAt: Date): Promise<void> {
 }
 
 /** Ends every session of an account, on every device. */
-export async function endAllSessions(userId: string): Promise<void> {
+export async function endAllSessions(userId: string, transaction?: Transaction): Promise<void> {
 	await db().query('UPDATE users SET session_generation = session_generation + 1 WHERE id = ?', {
-		replacements: [userId]
+		replacements: [userId],
+		transaction
 	});
 }
 

@@ -1,3 +1,4 @@
+import type { Transaction } from 'sequelize';
 import type { Role } from '../../roles';
 import { hashPassword } from '../auth/password';
 import { models, type User } from './models';
@@ -49,12 +50,18 @@ export async function update(id: string, patch: UserPatch) {
 	await models().User.update(patch, { where: { id } });
 }
 
-export async function setPassword(id: string, password: string) {
-	await models().User.update({ passwordHash: await hashPassword(password) }, { where: { id } });
+export async function setPassword(id: string, password: string, transaction?: Transaction) {
+	await models().User.update(
+		{ passwordHash: await hashPassword(password) },
+		{ where: { id }, transaction }
+	);
 }
 
-export async function markVerified(id: string) {
-	await models().User.update({ emailVerified: new Date() }, { where: { id, emailVerified: null } });
+export async function markVerified(id: string, transaction?: Transaction) {
+	await models().User.update(
+		{ emailVerified: new Date() },
+		{ where: { id, emailVerified: null }, transaction }
+	);
 }
 
 export async function count() {
