@@ -4,6 +4,7 @@ import { activeSuspension } from '../../moderation/suspension';
 import { ROLES, type Role } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
 import { endAllSessions } from '../auth/sessions';
+import { db } from '../db/connection';
 import { models, type User } from '../db/models';
 import * as users from '../db/users';
 import * as log from '../moderation/log';
@@ -85,12 +86,12 @@ export async function changeRole(me: CurrentUser, userId: string, role: Role, no
 export async function endSessionsOf(me: CurrentUser, userId: string, now: Date) {
 	const u = await users.read(userId);
 	if (!u) error(404, 'No such account.');
-	await endAllSessions(u.id);
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'end-sessions',
-		subjectId: u.id,
-		detail: {}
+	// Both or neither: an admin's step is never taken without its line in the log.
+	await db().transaction(async (t) => {
+		await endAllSessions(u.id, t);
+		await log.append(
+			{ at: now, actorId: me.id, action: 'end-sessions', subjectId: u.id, detail: {} },
+			t
+		);
 	});
 }

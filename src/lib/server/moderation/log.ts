@@ -1,4 +1,4 @@
-import { Op, type WhereOptions } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { models, type LogEntry } from '../db/models';
 import type { ItemRef } from './items';
 
@@ -13,17 +13,20 @@ export type LogInput = {
 };
 
 /** Adds a line to the moderation log. There is no update or delete: the database refuses both. */
-export async function append(e: LogInput): Promise<void> {
-	await models().LogEntry.create({
-		at: e.at,
-		actorId: e.actorId,
-		action: e.action,
-		itemType: e.item?.type ?? null,
-		itemId: e.item?.id ?? null,
-		subjectId: e.subjectId ?? null,
-		reason: e.reason ?? '',
-		detail: e.detail ?? null
-	});
+export async function append(e: LogInput, transaction?: Transaction): Promise<void> {
+	await models().LogEntry.create(
+		{
+			at: e.at,
+			actorId: e.actorId,
+			action: e.action,
+			itemType: e.item?.type ?? null,
+			itemId: e.item?.id ?? null,
+			subjectId: e.subjectId ?? null,
+			reason: e.reason ?? '',
+			detail: e.detail ?? null
+		},
+		{ transaction }
+	);
 }
 
 export type LogView = {

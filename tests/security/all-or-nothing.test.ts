@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { resetPassword } from '../../src/lib/server/accounts';
+import { endSessionsOf } from '../../src/lib/server/admin/users';
 import * as tokens from '../../src/lib/server/auth/email-tokens';
 import { checkPassword } from '../../src/lib/server/auth/password';
 import { closeDb, db } from '../../src/lib/server/db/connection';
@@ -49,5 +50,38 @@ describe('a password reset is all or nothing', () => {
 		expect(after.emailVerified).not.toBeNull();
 		expect(await generation(u.id)).toBe(genBefore + 1);
 		expect((await tokens.inspect(token, 'reset')).ok).toBe(false);
+	});
+});
+
+describe("an admin's sign-out-everywhere is logged or not done", () => {
+	it('a log write that fails leaves the sessions as they were', async () => {
+		const admin = await makeUser({ role: 'admin' });
+		const target = await makeUser();
+		const before = await generation(target.id);
+		const me = {
+			id: admin.id,
+			email: admin.email,
+			name: 'Admin',
+			role: 'admin' as const,
+			units: 'metric' as const,
+			suspension: null
+		};
+		const { LogEntry } = models();
+		LogEntry.addHook('beforeCreate', 'break-log', () => {
+			throw new Error('injected failure');
+		});
+		try {
+			await expect(endSessionsOf(me, target.id, new Date())).rejects.toThrow('injected failure');
+		} finally {
+			LogEntry.removeHook('beforeCreate', 'break-log');
+		}
+		expect(await generation(target.id)).toBe(before);
+
+		await endSessionsOf(me, target.id, new Date());
+		expect(await generation(target.id)).toBe(before + 1);
+		const logged = await LogEntry.count({
+			where: { action: 'end-sessions', subjectId: target.id }
+		});
+		expect(logged).toBe(1);
 	});
 });
