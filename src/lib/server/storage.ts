@@ -133,7 +133,14 @@ const pendingLate = new Set<string>();
 
 export function deleteLater(keys: string[]): void {
 	for (const k of keys) pendingLate.add(k);
-	for (const ms of LATE_DELETE_AFTER_MS) setTimeout(() => void deleteNow(keys), ms).unref();
+	LATE_DELETE_AFTER_MS.forEach((ms, i) => {
+		const last = i === LATE_DELETE_AFTER_MS.length - 1;
+		setTimeout(() => {
+			// After the last try the keys are forgotten, so the set does not grow for ever.
+			if (last) for (const k of keys) pendingLate.delete(k);
+			void deleteNow(keys);
+		}, ms).unref();
+	});
 }
 
 async function deleteNow(keys: string[]): Promise<void> {
