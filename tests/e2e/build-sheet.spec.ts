@@ -26,6 +26,12 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 
 	await expect(page.getByRole('heading', { name: 'The first setup' })).toBeVisible();
 	await expect(page.getByLabel('This is the stock baseline')).toBeChecked();
+	// Nothing is guessed: an untouched select would save "not recorded", never its first option.
+	await expect(page.getByLabel('Lubrication')).toHaveValue('');
+	await expect(page.getByLabel('Lubrication').locator('option:checked')).toHaveText('not recorded');
+	await page.getByLabel('Lubrication').selectOption('oil-injection');
+	await page.getByLabel('Cylinder material').selectOption('cast-iron');
+	await page.getByLabel('Jet series numbered').selectOption('diameter');
 	await fill(page, {
 		Bore: '40',
 		Stroke: '39.2',
@@ -51,6 +57,11 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 		'Air temperature': '18',
 		'Relative humidity': '60'
 	});
+	await expect(page.getByLabel('Measured with')).toHaveValue('');
+	await page.getByRole('button', { name: 'Save run' }).click();
+	await expect(page.getByText('Choose one.')).toHaveCount(2); // how it was measured, and where
+	await page.getByLabel('Measured with').selectOption('gps-logger');
+	await page.getByLabel('Where').selectOption('closed-course');
 	await page.getByRole('button', { name: 'Save run' }).click();
 	await expect(page.getByRole('link', { name: /52\.0 km\/h/ })).toBeVisible();
 
@@ -73,6 +84,8 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 		'Air temperature': '21',
 		'Relative humidity': '50'
 	});
+	await page.getByLabel('Measured with').selectOption('gps-logger');
+	await page.getByLabel('Where').selectOption('closed-course');
 	await page.getByRole('button', { name: 'Save run' }).click();
 
 	const parts = page.getByRole('form', { name: 'Add a part' });
@@ -99,6 +112,9 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(page.getByText('190 mm disc').filter({ visible: true }).first()).toBeVisible();
 	// Displacement π/4 · 47² · 39.2 = 68.0 cc; the diff names the changed fields.
 	await expect(page.getByRole('row', { name: /Displacement 68\.0 cc/ })).toBeVisible();
+	const baseline = page.getByRole('group').filter({ hasText: 'Full configuration' }).first();
+	await baseline.getByText('Full configuration').click();
+	await expect(baseline.locator('dt:text-is("Lubrication") + dd')).toHaveText('oil injection');
 	const changes = page.getByRole('list', { name: 'Changes from the previous setup' });
 	await expect(changes).toContainText('Bore');
 	await expect(changes).toContainText('40.00 mm');

@@ -17,6 +17,9 @@ export type Field = {
 	/** Length limit for text. */
 	maxLength?: number;
 	options?: Option[];
+	/** The value an untouched select takes, shown chosen in the form. Without one a select starts at
+	 * nothing chosen ("not recorded"), so an untouched select never saves a guess. */
+	preset?: string;
 	optional?: boolean;
 	hint?: string;
 	/** Needed even in a draft (every other non-optional field is needed to publish). */
@@ -117,6 +120,7 @@ export const BUILD_FIELDS: Field[] = [
 		label: 'Cycle',
 		section: 'Build',
 		kind: 'select',
+		preset: 'two-stroke',
 		options: opts(['two-stroke', 'two-stroke'], ['four-stroke', 'four-stroke'])
 	},
 	{
@@ -124,6 +128,7 @@ export const BUILD_FIELDS: Field[] = [
 		label: 'Cooling',
 		section: 'Build',
 		kind: 'select',
+		preset: 'air',
 		options: opts(['air', 'air-cooled'], ['liquid', 'liquid-cooled'])
 	},
 	{
@@ -131,6 +136,7 @@ export const BUILD_FIELDS: Field[] = [
 		label: 'Cylinder',
 		section: 'Build',
 		kind: 'select',
+		preset: 'horizontal',
 		options: opts(['horizontal', 'horizontal'], ['vertical', 'vertical'])
 	},
 	{ name: 'brakeFront', label: 'Front brake', section: 'Brakes', kind: 'text', maxLength: 120 },
@@ -146,6 +152,7 @@ export const BUILD_FIELDS: Field[] = [
 		label: 'Currency of the parts list',
 		section: 'Build',
 		kind: 'select',
+		preset: 'EUR',
 		options: CURRENCIES
 	},
 	{

@@ -63,6 +63,7 @@ export const RUN_FIELDS: Field[] = [
 		label: 'That pressure is',
 		section: 'Air',
 		kind: 'select',
+		preset: 'sea-level',
 		options: [
 			{ value: 'sea-level', label: 'a sea-level reading' },
 			{ value: 'station', label: 'measured at the site' }
@@ -93,6 +94,7 @@ export const RUN_FIELDS: Field[] = [
 		label: 'Temperature sensor',
 		section: 'Engine',
 		kind: 'select',
+		preset: 'plug-washer',
 		options: [
 			{ value: 'plug-washer', label: 'under the plug' },
 			{ value: 'head-stud', label: 'on a head stud' },

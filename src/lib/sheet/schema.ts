@@ -30,10 +30,13 @@ function fieldSchema(f: Field, units: Units, mode: Mode): z.ZodType {
 		case 'checkbox':
 			return z.boolean().default(false);
 		case 'select': {
-			const values = (f.options ?? []).map((o) => o.value);
-			return values.length
-				? z.enum(values as [string, ...string[]]).default(values[0])
-				: z.string().default('');
+			const values = (f.options ?? []).map((o) => o.value).filter((v) => v !== '');
+			if (!values.length) return z.string().default('');
+			const error = 'Choose one.';
+			if (f.preset) return z.enum(values as [string, ...string[]], { error }).default(f.preset);
+			// '' is "not recorded": allowed unless the field is needed now, and then it is the prompt.
+			const any = z.enum(['', ...values] as [string, ...string[]], { error });
+			return needed ? any.refine((v) => v !== '', { error }) : any.default('');
 		}
 		case 'number':
 		case 'int': {

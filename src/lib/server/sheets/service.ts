@@ -46,9 +46,8 @@ export async function newSetupValues(buildId: number): Promise<Stored> {
 		return {
 			changeNote: 'Stock baseline',
 			isStock: true,
-			jetNumbering: 'diameter',
-			exhaustType: 'stock',
-			lubrication: 'premix'
+			// A stock baseline's exhaust is stock by definition; nothing else is guessed.
+			exhaustType: 'stock'
 		};
 	return { ...last.config, changeNote: '', isStock: false };
 }

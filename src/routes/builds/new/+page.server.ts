@@ -13,12 +13,7 @@ export const load: PageServerLoad = async (event) => {
 	const units = unitsFor(event);
 	return {
 		units,
-		form: await sheetForm('build', BUILD_FIELDS, units, {
-			engineCycle: 'two-stroke',
-			cooling: 'air',
-			cylinderOrientation: 'horizontal',
-			currency: 'EUR'
-		})
+		form: await sheetForm('build', BUILD_FIELDS, units, null)
 	};
 };
 

@@ -16,10 +16,6 @@ export const load: PageServerLoad = async (event) => {
 		units,
 		{
 			runOn: today,
-			method: 'gps-logger',
-			venue: 'closed-course',
-			pressureKind: 'sea-level',
-			chtSensor: 'plug-washer',
 			humidity: 50
 		},
 		'complete'
