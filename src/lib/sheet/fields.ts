@@ -14,6 +14,8 @@ export type Field = {
 	unit?: string;
 	min?: number;
 	max?: number;
+	/** Decimals kept for a number without a dimension (default 3; a whole number keeps none). */
+	places?: number;
 	/** Length limit for text. */
 	maxLength?: number;
 	options?: Option[];

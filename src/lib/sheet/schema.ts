@@ -1,7 +1,7 @@
 // zod schemas generated from the field descriptions, in the units the person typed.
 import { z } from 'zod';
 import type { Field } from './fields';
-import { PLACES, toCanonical, toShown, UNIT, type Units } from './units';
+import { PLACES, STORED_PLACES, toCanonical, toShown, UNIT, type Units } from './units';
 
 export type Mode = 'draft' | 'complete';
 export type SheetValues = Record<string, string | number | boolean | undefined>;
@@ -85,6 +85,22 @@ export function schemaFor(name: string, fields: Field[], units: Units, mode: Mod
 	return s;
 }
 
+/** A stored number at its field's precision (canonical units). */
+export function atPrecision(f: Field, v: number): number {
+	const places = f.dim ? STORED_PLACES[f.dim] : f.kind === 'int' ? 0 : (f.places ?? 3);
+	return Number(v.toFixed(places));
+}
+
+/** Stored values with every number held at its field's precision; other values untouched. */
+export function roundStored<T extends Record<string, unknown>>(fields: Field[], stored: T): T {
+	const out: Record<string, unknown> = { ...stored };
+	for (const f of fields) {
+		const v = out[f.name];
+		if (typeof v === 'number' && Number.isFinite(v)) out[f.name] = atPrecision(f, v);
+	}
+	return out as T;
+}
+
 /** Typed values → canonical units for storage. Empty numbers and dates become null, empty text ''. */
 export function toStored(
 	fields: Field[],
@@ -97,7 +113,8 @@ export function toStored(
 		if (v === undefined || v === '')
 			out[f.name] =
 				f.kind === 'checkbox' ? false : f.kind === 'text' || f.kind === 'textarea' ? '' : null;
-		else if (typeof v === 'number' && f.dim) out[f.name] = toCanonical(v, f.dim, units);
+		else if (typeof v === 'number')
+			out[f.name] = atPrecision(f, f.dim ? toCanonical(v, f.dim, units) : v);
 		else out[f.name] = v;
 	}
 	return out;

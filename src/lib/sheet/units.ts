@@ -43,6 +43,18 @@ export const PLACES: Record<Dim, Record<Units, number>> = {
 	pressure: { metric: 1, imperial: 2 }
 };
 
+/** Decimals kept in the database (canonical units): fine enough to hold what was typed in either
+ * system (0.0001 in = 0.00254 mm, 0.1 mph = 0.16 km/h, 1 ft = 0.3 m, 0.1 °F = 0.056 °C,
+ * 0.1 lb = 0.045 kg, 0.01 inHg = 0.034 kPa), and no finer, so sums like 0.8 + 0.05 do not leak. */
+export const STORED_PLACES: Record<Dim, number> = {
+	length: 3,
+	speed: 2,
+	elevation: 1,
+	temp: 2,
+	mass: 2,
+	pressure: 2
+};
+
 export const toShown = (v: number, dim: Dim, units: Units) =>
 	units === 'imperial' ? TO_IMPERIAL[dim](v) : v;
 export const toCanonical = (v: number, dim: Dim, units: Units) =>

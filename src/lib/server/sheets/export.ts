@@ -6,6 +6,8 @@ import {
 } from '../../sheet/export-schema';
 import { BUILD_FIELDS } from '../../sheet/fields';
 import { RUN_FIELDS } from '../../sheet/run-fields';
+import { roundStored } from '../../sheet/schema';
+import { SETUP_FIELDS } from '../../sheet/setup-fields';
 import { parse } from '../api';
 import * as builds from '../db/builds';
 import type { Build } from '../db/models';
@@ -46,11 +48,13 @@ export async function exportBuild(
 		setups: setupRows.map((s) => ({
 			changeNote: s.changeNote,
 			isStock: s.isStock,
-			config: compact(s.config) as BuildSheetExport['setups'][number]['config'],
+			config: compact(
+				roundStored(SETUP_FIELDS, s.config)
+			) as BuildSheetExport['setups'][number]['config'],
 			runs: runRows
 				.filter((r) => r.setupId === s.id)
 				.map((r) =>
-					pickFields(runNames, runFromColumns(r))
+					pickFields(runNames, roundStored(RUN_FIELDS, runFromColumns(r)))
 				) as BuildSheetExport['setups'][number]['runs']
 		})),
 		parts: partRows.map((p) => ({

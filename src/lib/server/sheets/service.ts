@@ -1,6 +1,7 @@
 import { BUILD_FIELDS } from '../../sheet/fields';
 import { SETUP_FIELDS } from '../../sheet/setup-fields';
-import { missingFor } from '../../sheet/schema';
+import { RUN_FIELDS } from '../../sheet/run-fields';
+import { missingFor, roundStored } from '../../sheet/schema';
 import * as builds from '../db/builds';
 import type { Build, Run } from '../db/models';
 import type { SetupConfig } from '../db/models/setup';
@@ -19,7 +20,8 @@ export async function saveSetup(
 	stored: Stored,
 	existing?: { id: number; version: number }
 ) {
-	const { changeNote, isStock, ...config } = stored;
+	// Every door (forms, JSON, import, demo data) passes here: numbers are kept at field precision.
+	const { changeNote, isStock, ...config } = roundStored(SETUP_FIELDS, stored);
 	const note = String(changeNote ?? '');
 	let id = existing?.id;
 	if (existing) {
@@ -86,7 +88,7 @@ export async function saveRun(
 	stored: Stored,
 	existing?: { id: number; version: number }
 ) {
-	const values = runToColumns(stored);
+	const values = runToColumns(roundStored(RUN_FIELDS, stored));
 	let id = existing?.id;
 	if (existing) {
 		if (!(await runs.update(existing.id, existing.version, { ...values, setupId } as never)))
