@@ -4,7 +4,7 @@ import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/db/builds';
 import { BAND } from '../../src/lib/close/weights';
 import { closeBuilds, rankClose, targetFrom } from '../../src/lib/server/close/service';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
 import { makeUser } from '../support/factories';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 
@@ -136,5 +136,39 @@ describe('close builds', () => {
 		]);
 		// "Using index": the ranking reads index entries only, never the table rows.
 		for (const p of plans) expect(p.Extra.split('; ')).toContain('Using index');
+	});
+
+	it('prices each setup by the parts fitted up to it, never the whole build', async () => {
+		// Stock 50 cc baseline at 50.7 km/h, then a kit (€300.00, fitted in setup 2) at 90 km/h; a
+		// €82.00 part tied to no setup counts on the representative setup only.
+		const owner = await makeUser();
+		const b = await builds.create(owner.id, {
+			title: 'Priced by the step',
+			engineCycle: 'four-stroke',
+			chassis: 'fixture',
+			engineFamily: 'fixture',
+			brakeFront: 'disc',
+			brakeRear: 'drum'
+		});
+		const stock = (await saveSetup(b.id, {
+			...BASE,
+			changeNote: 'Stock baseline',
+			isStock: true,
+			bore: 40
+		} as never)) as { id: number };
+		await saveRun(b.id, stock.id, run(50.7, 200) as never);
+		const kit = (await saveSetup(b.id, { ...BASE, changeNote: '70 cc kit' } as never)) as {
+			id: number;
+		};
+		await saveRun(b.id, kit.id, run(90, 200) as never);
+		await addPart(b.id, { category: 'cylinder', name: 'Kit', cost: 300, setupId: kit.id });
+		await addPart(b.id, { category: 'tools', name: 'Feeler gauges', cost: 82, setupId: null });
+		await setPublication((await builds.read(b.id))!, 'published');
+		const all = (await closeBuilds(target, { cycle: 'four-stroke', all: true, limit: 50 })).results;
+		const cost = (setupId: number) => all.find((r) => r.setupId === setupId)?.partsMinor;
+		expect(cost(stock.id)).toBe(0);
+		expect(cost(kit.id)).toBe(38200);
+		const rep = (await closeBuilds(target, { cycle: 'four-stroke', limit: 50 })).results;
+		expect(rep.find((r) => r.buildId === b.id)?.partsMinor).toBe(38200);
 	});
 });

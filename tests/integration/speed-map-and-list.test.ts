@@ -137,6 +137,23 @@ describe('builds list and search', () => {
 		}
 	});
 
+	it('orders by cost within one currency and leaves builds with no parts out', async () => {
+		for (const currency of ['EUR', 'GBP']) {
+			const one = await list({ sort: 'cheapest', currency, limit: 10 });
+			const two = await list({ sort: 'cheapest', currency, limit: 10, cursor: one.next });
+			const rows = [...one.builds, ...two.builds];
+			expect(rows.length).toBeGreaterThan(3);
+			expect(rows.every((b) => b.currency === currency)).toBe(true);
+			expect(rows.every((b) => b.partsTotalMinor > 0)).toBe(true);
+			const costs = rows.map((b) => b.partsTotalMinor);
+			expect(costs).toEqual([...costs].sort((a, b) => a - b));
+			expect(new Set(rows.map((b) => b.id)).size).toBe(rows.length);
+		}
+		// No currency named: euros (the pages pass the reader's own; see currencyFor).
+		const plain = await list({ sort: 'cheapest', limit: 20 });
+		expect(plain.builds.every((b) => b.currency === 'EUR')).toBe(true);
+	});
+
 	it('pages by key without overlap, fastest first', async () => {
 		const one = await list({ sort: 'fastest', limit: 5 });
 		const two = await list({ sort: 'fastest', limit: 5, cursor: one.next });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EXHAUST_TYPES } from '../sheet/fields';
+import { CURRENCIES, EXHAUST_TYPES } from '../sheet/fields';
 
 // The public builds list's filters, sort and page, shared by /builds and GET /api/builds. Numbers are
 // in the reader's units (speed in km/h or mph, elevation in m or ft); the server converts.
@@ -34,6 +34,11 @@ export const buildListSchema = z.object({
 	photos: z.enum(['1']).optional().catch(undefined),
 	runs: z.enum(['0', '1']).optional().catch(undefined),
 	sort: z.enum(['newest', 'fastest', 'cheapest']).default('newest').catch('newest'),
+	/** The currency a cost order is read in (costs are never converted); the reader's by default. */
+	currency: z
+		.enum(CURRENCIES.map((o) => o.value) as [string, ...string[]])
+		.optional()
+		.catch(undefined),
 	view: z.enum(['cards', 'table']).default('cards').catch('cards'),
 	cursor: z.string().max(200).optional().catch(undefined),
 	limit: z.coerce.number().int().min(1).max(100).default(24).catch(24)

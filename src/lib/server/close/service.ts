@@ -197,11 +197,15 @@ export async function closeBuilds(
 				method: string | null;
 				build_id: number;
 				title: string;
-				parts_total_minor: number;
+				parts_minor: number;
 				currency: string;
 				owner: string | null;
 			}>(
-				`SELECT s.id, s.position, s.change_note, s.best_run_method AS method, b.id AS build_id, b.title, b.parts_total_minor, b.currency, u.name AS owner
+				// A setup's cost is what was fitted up to it: the parts of its own and earlier setups.
+				// Parts tied to no setup count only on the build's representative setup.
+				`SELECT s.id, s.position, s.change_note, s.best_run_method AS method, b.id AS build_id, b.title, b.currency, u.name AS owner,
+					(SELECT COALESCE(SUM(p.cost_minor), 0) FROM parts p LEFT JOIN setups ps ON ps.id = p.setup_id
+						WHERE p.build_id = s.build_id AND (ps.position <= s.position OR (p.setup_id IS NULL AND s.listed = 1))) AS parts_minor
 				FROM setups s JOIN builds b ON b.id = s.build_id LEFT JOIN users u ON u.id = b.owner_id WHERE s.id IN (:ids)`,
 				{ replacements: { ids }, type: QueryTypes.SELECT }
 			)
@@ -229,7 +233,7 @@ export async function closeBuilds(
 			reasons: reasons(target, c),
 			bestKmh: r.best === null ? null : Number(r.best),
 			method: d.method,
-			partsTotalMinor: d.parts_total_minor,
+			partsMinor: Number(d.parts_minor),
 			currency: d.currency,
 			cc: r.cc
 		};

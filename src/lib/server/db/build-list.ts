@@ -32,7 +32,7 @@ export type ListRow = {
 	verifiedShop: boolean;
 };
 
-// Each order walks an index (id; best speed, id; parts total, id), so a page reads about its own
+// Each order walks an index (id; best speed, id; currency, parts total, id), so a page reads about its own
 // rows. The id breaks ties in the key's direction. MariaDB sorts NULL speeds last when descending.
 const KEY = {
 	newest: { col: 'b.id', dir: 'DESC' },
@@ -47,6 +47,11 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 		w.push(sql);
 		r[name] = v;
 	};
+	// A cost order compares like with like: one currency, and only builds with parts listed.
+	if (q.sort === 'cheapest') {
+		add('b.currency = :currency', 'currency', q.currency ?? 'EUR');
+		w.push('b.parts_total_minor > 0');
+	}
 	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
 	if (q.family) add('b.engine_family = :family', 'family', q.family);
 	if (q.exhaust) add('b.rep_pipe = :exhaust', 'exhaust', q.exhaust);
@@ -71,7 +76,7 @@ export const LIST_TUNING = { filterIndex: true };
 const ORDER_INDEX = {
 	newest: 'PRIMARY',
 	fastest: 'builds_best_speed',
-	cheapest: 'builds_parts_total'
+	cheapest: 'builds_currency_parts'
 };
 
 function cursorWhere(q: BuildListQuery) {

@@ -12,6 +12,7 @@ import * as m008 from './migrations/2026.12.02T04.00.00.stats-and-search';
 import * as m009 from './migrations/2026.12.02T06.00.00.moderation';
 import * as m010 from './migrations/2026.12.02T11.00.00.shops';
 import * as m011 from './migrations/2026.12.02T18.00.00.sessions-and-mail-queue';
+import * as m012 from './migrations/2026.12.02T21.00.00.cheapest-by-currency';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -27,7 +28,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T04.00.00.stats-and-search', ...m008 },
 	{ name: '2026.12.02T06.00.00.moderation', ...m009 },
 	{ name: '2026.12.02T11.00.00.shops', ...m010 },
-	{ name: '2026.12.02T18.00.00.sessions-and-mail-queue', ...m011 }
+	{ name: '2026.12.02T18.00.00.sessions-and-mail-queue', ...m011 },
+	{ name: '2026.12.02T21.00.00.cheapest-by-currency', ...m012 }
 ];
 
 export function migrator() {

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { api, created, parse, readJson } from '$lib/server/api';
 import * as builds from '$lib/server/db/builds';
 import { listBuilds } from '$lib/server/db/build-list';
-import { unitsFor } from '$lib/server/sheets/units';
+import { currencyFor, unitsFor } from '$lib/server/sheets/units';
 import { buildListSchema } from '$lib/schemas/build-list';
 import { requireUser } from '$lib/server/guard';
 import { sheetBody } from '$lib/server/sheets/api-bodies';
@@ -12,6 +12,7 @@ import type { RequestHandler } from './$types';
 // Public list of published sheets: the same filters, search and keyset pages as /builds.
 export const GET: RequestHandler = api(async (event) => {
 	const q = parse(buildListSchema, Object.fromEntries(event.url.searchParams));
+	if (q.sort === 'cheapest') q.currency ??= currencyFor(event);
 	return json(await listBuilds(q, unitsFor(event)));
 });
 
