@@ -1,4 +1,4 @@
-import type { Field } from './fields';
+import { RUN_METHODS, type Field } from './fields';
 import { PLACES, show, type Units } from './units';
 
 /** A stored (canonical) field value as a reader sees it. */
@@ -23,4 +23,9 @@ export function formatField(f: Field, v: unknown, units: Units): string {
 /** Money in minor units as "€ 129.90"-style text, via the platform's currency formatting. */
 export function formatMoney(minor: number, currency: string): string {
 	return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 100);
+}
+
+/** How a run was measured, in words ("phone GPS", never the stored code). */
+export function methodLabel(m: string | null | undefined): string {
+	return m ? (RUN_METHODS.find((o) => o.value === m)?.label ?? m) : '';
 }

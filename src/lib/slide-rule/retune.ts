@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import * as t from '../tuning';
 import { conditions, placeShape } from './air-and-jets';
-import { on, row, type CalcResult } from './types';
+import { changeRow, on, row, type CalcResult } from './types';
 
 export const retuneSchema = z.object({
 	units: z.enum(['metric', 'imperial']),
@@ -61,7 +61,7 @@ export function computeRetune(i: RetuneInput): CalcResult {
 	const rows = [
 		row('fromDensity', 'Air density where it was tuned', a.densityKgM3, 'kg/m³', 4),
 		row('toDensity', 'Air density at the target', b.densityKgM3, 'kg/m³', 4),
-		row('densityChange', 'Density change', 100 * (b.densityKgM3 / a.densityKgM3 - 1), '%', 1),
+		changeRow('densityChange', 'Density change', 100 * (b.densityKgM3 / a.densityKgM3 - 1), '%', 1),
 		row('physics', 'Main jet by the air-density physics', physics, '', 2),
 		row('physicsJet', 'Nearest real jet (physics)', physicsJet, '', 1),
 		row('rule', 'Main jet by the 1,000 ft rule of thumb', rule, '', 2),

@@ -10,7 +10,17 @@ export type ResultRow = {
 	unit: string;
 	decimals: number;
 	note?: string;
+	/** A change: shown with its sign (+ or −) even when positive. */
+	signed?: boolean;
 };
+
+/** A row's value as printed: fixed decimals, a real minus sign, and a plus on a positive change. */
+export function formatResult(r: ResultRow): string {
+	const text = Math.abs(r.value).toFixed(r.decimals);
+	const zero = Number(text) === 0;
+	if (r.value < 0 && !zero) return `\u2212${text}`;
+	return r.signed && !zero ? `+${text}` : text;
+}
 
 export type CalcResult = { rows: ResultRow[]; warnings: SpeedWarning[]; notes: string[] };
 
@@ -54,3 +64,12 @@ export const row = (
 	decimals,
 	...(note ? { note } : {})
 });
+
+/** A row that is a change from one state to another, printed with its sign. */
+export const changeRow = (
+	key: string,
+	label: string,
+	value: number,
+	unit: string,
+	decimals: number
+): ResultRow => ({ ...row(key, label, value, unit, decimals), signed: true });
