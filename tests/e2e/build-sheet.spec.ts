@@ -103,6 +103,12 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(
 		page.getByRole('cell', { name: 'Halvard expansion chamber', exact: true })
 	).toBeVisible();
+	// A typo in a price is fixed in place, not by removing the part and adding it again.
+	await page.getByRole('link', { name: 'Edit Halvard expansion chamber' }).click();
+	await expect(page.getByLabel('Cost')).toHaveValue('149.5');
+	await page.getByLabel('Cost').fill('159.50');
+	await page.getByRole('button', { name: 'Save the part' }).click();
+	await expect(page.getByRole('cell', { name: '€159.50' })).toBeVisible();
 
 	await page.getByRole('button', { name: 'Publish the build sheet' }).click();
 	await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
@@ -120,8 +126,8 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(changes).toContainText('40.00 mm');
 	await expect(changes).toContainText('47.00 mm');
 	await expect(changes).toContainText('expansion chamber');
-	// (189.00 + 149.50) / (98 − 52) km/h = 7.36 per km/h.
-	await expect(page.getByTestId('cost-per-speed')).toHaveText('€7.36');
+	// (189.00 + 159.50) / (98 − 52) km/h = 7.576 per km/h.
+	await expect(page.getByTestId('cost-per-speed')).toHaveText('€7.58');
 	await expect(
 		page.getByText("above the tyre's speed symbol").filter({ visible: true }).first()
 	).toBeVisible();
@@ -130,7 +136,7 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(page.getByText('60.9 mph').filter({ visible: true }).first()).toBeVisible(); // 98 km/h ÷ 1.609344
 	await expect(page.getByText('656 ft').filter({ visible: true }).first()).toBeVisible(); // 200 m ÷ 0.3048
 	await expect(page.getByText('69.8 °F').filter({ visible: true }).first()).toBeVisible(); // 21 °C × 1.8 + 32
-	await expect(page.getByTestId('cost-per-speed')).toHaveText('€11.84'); // per mph: 7.358 × 1.609344
+	await expect(page.getByTestId('cost-per-speed')).toHaveText('€12.19'); // per mph: 7.576 × 1.609344
 
 	await page.goto(`/builds?q=${encodeURIComponent(title)}`);
 	await expect(page.getByRole('link', { name: title })).toBeVisible();

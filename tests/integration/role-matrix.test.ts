@@ -62,6 +62,7 @@ const MATRIX: Record<string, Spec> = {
 	'POST /api/builds/[id]/comments': { policy: 'member', ok: 422 },
 	'POST /api/builds/[id]/parts': { policy: 'owner', ok: 422 },
 	'DELETE /api/builds/[id]/parts/[partId]': { policy: 'owner', ok: 204 },
+	'PUT /api/builds/[id]/parts/[partId]': { policy: 'owner', ok: 422 },
 	'POST /api/builds/[id]/photos': { policy: 'owner', ok: 415 },
 	'PATCH /api/builds/[id]/photos/[photoId]': {
 		policy: 'owner',
@@ -124,6 +125,8 @@ const MATRIX: Record<string, Spec> = {
 	'/builds/[id]/edit ?/destroy': { policy: 'owner', ok: 303 },
 	'/builds/[id]/runs/[runId]/edit ?/save': { policy: 'owner', ok: 400 },
 	'/builds/[id]/runs/[runId]/edit ?/remove': { policy: 'owner', ok: 303 },
+	'/builds/[id]/parts/[partId]/edit ?/save': { policy: 'owner', ok: 400 },
+	'/builds/[id]/parts/[partId]/edit ?/remove': { policy: 'owner', ok: 303 },
 	'/builds/[id]/setups/[setupId]/edit ?/save': { policy: 'owner', ok: 400 },
 	'/builds/[id]/setups/[setupId]/edit ?/remove': { policy: 'owner', ok: 303 },
 	'/builds/[id]/setups/[setupId]/runs/new ?/create': { policy: 'owner', ok: 400 },

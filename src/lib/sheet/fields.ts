@@ -23,6 +23,8 @@ export type Field = {
 	 * nothing chosen ("not recorded"), so an untouched select never saves a guess. */
 	preset?: string;
 	optional?: boolean;
+	/** Known only with the engine open: a stock baseline may publish without it. */
+	insideEngine?: boolean;
 	hint?: string;
 	/** Needed even in a draft (every other non-optional field is needed to publish). */
 	always?: boolean;

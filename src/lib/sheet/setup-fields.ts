@@ -49,6 +49,7 @@ export const SETUP_FIELDS: Field[] = [
 		label: 'Cylinder material',
 		section: 'Cylinder',
 		kind: 'select',
+		insideEngine: true,
 		options: o('cast-iron', 'plated-aluminium', 'other')
 	},
 	{
@@ -68,7 +69,9 @@ export const SETUP_FIELDS: Field[] = [
 		kind: 'number',
 		dim: 'length',
 		min: 0.3,
-		max: 3
+		max: 3,
+		insideEngine: true,
+		hint: 'Measured with crushed solder, head off; a stock baseline may leave it empty.'
 	},
 	{
 		name: 'baseGasket',
@@ -454,3 +457,8 @@ export const SETUP_FIELDS: Field[] = [
 
 /** Used for the gearing sums when no top CVT ratio was measured. */
 export const DEFAULT_TOP_CVT = 0.85;
+
+/** A stock baseline's fields: what needs the engine open may stay empty when publishing. */
+export const STOCK_BASELINE_FIELDS: Field[] = SETUP_FIELDS.map((f) =>
+	f.insideEngine ? { ...f, optional: true } : f
+);

@@ -1,6 +1,7 @@
 import { error, type RequestEvent } from '@sveltejs/kit';
 import { roleAllows } from '../../roles';
 import * as builds from '../db/builds';
+import * as parts from '../db/parts';
 import * as runs from '../db/runs';
 import * as setups from '../db/setups';
 import { requireUser } from '../guard';
@@ -61,6 +62,14 @@ export async function editRun(event: RequestEvent & { params: { id: string; runI
 	const run = await runs.read(build.id, Number(event.params.runId));
 	if (!run) error(404, 'No such run.');
 	return { build, run };
+}
+
+/** A part of a build the signed-in member may change, from `params.id` and `params.partId`. */
+export async function editPart(event: RequestEvent & { params: { id: string; partId: string } }) {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const part = await parts.read(build.id, Number(event.params.partId));
+	if (!part) error(404, 'No such part.');
+	return { build, part };
 }
 
 /**

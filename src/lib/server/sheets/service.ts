@@ -1,5 +1,5 @@
 import { BUILD_FIELDS } from '../../sheet/fields';
-import { SETUP_FIELDS } from '../../sheet/setup-fields';
+import { SETUP_FIELDS, STOCK_BASELINE_FIELDS } from '../../sheet/setup-fields';
 import { RUN_FIELDS } from '../../sheet/run-fields';
 import { missingFor, roundStored } from '../../sheet/schema';
 import * as builds from '../db/builds';
@@ -112,16 +112,37 @@ export async function checkSetupOf(buildId: number, setupId: number | null): Pro
 	}
 }
 
+const partValues = (stored: Stored): parts.PartValues => ({
+	category: String(stored.category),
+	name: String(stored.name),
+	costMinor: Math.round(Number(stored.cost ?? 0) * 100),
+	link: stored.link ? String(stored.link) : null,
+	setupId: stored.setupId ? Number(stored.setupId) : null
+});
+
+/** A part's values as its form shows them (cost in the currency's units, setup as a choice). */
+export function partToStored(p: parts.PartValues): Stored {
+	return {
+		category: p.category,
+		name: p.name,
+		cost: p.costMinor / 100,
+		link: p.link ?? '',
+		setupId: p.setupId === null ? '' : String(p.setupId)
+	};
+}
+
 export async function addPart(buildId: number, stored: Stored) {
 	await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
-	await parts.create(buildId, {
-		category: String(stored.category),
-		name: String(stored.name),
-		costMinor: Math.round(Number(stored.cost ?? 0) * 100),
-		link: stored.link ? String(stored.link) : null,
-		setupId: stored.setupId ? Number(stored.setupId) : null
-	});
+	await parts.create(buildId, partValues(stored));
 	await recomputeBuild(buildId);
+}
+
+/** Changes a listed part; false when it is not (or no longer) on this build. */
+export async function updatePart(buildId: number, partId: number, stored: Stored) {
+	await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
+	if (!(await parts.update(buildId, partId, partValues(stored)))) return false;
+	await recomputeBuild(buildId);
+	return true;
 }
 
 export async function removePart(buildId: number, partId: number) {
@@ -137,7 +158,8 @@ export async function publishProblems(b: Build): Promise<string[]> {
 	const list = await setups.listForBuild(b.id);
 	if (list.length === 0) problems.push('At least one setup is needed.');
 	for (const s of list) {
-		for (const l of missingFor('setup-publish', SETUP_FIELDS, {
+		const fields = s.isStock ? STOCK_BASELINE_FIELDS : SETUP_FIELDS;
+		for (const l of missingFor(s.isStock ? 'stock-publish' : 'setup-publish', fields, {
 			...s.config,
 			changeNote: s.changeNote,
 			isStock: s.isStock

@@ -1,7 +1,29 @@
-import { api, noContent } from '$lib/server/api';
+import { json } from '@sveltejs/kit';
+import { api, noContent, readJson } from '$lib/server/api';
+import { ApiFailure } from '$lib/server/failure';
 import { editBuild, idParam } from '$lib/server/sheets/access';
-import { removePart } from '$lib/server/sheets/service';
+import { sheetBody } from '$lib/server/sheets/api-bodies';
+import { removePart, updatePart } from '$lib/server/sheets/service';
+import { PART_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
+
+/** The whole part, as POST on the list takes it. */
+export const PUT: RequestHandler = api(async (event) => {
+	const { build } = await editBuild(event, idParam(event.params.id));
+	const body = (await readJson(event.request)) as Record<string, unknown>;
+	const stored = sheetBody(
+		'part',
+		PART_FIELDS,
+		{
+			...body,
+			setupId: body?.setupId === undefined || body?.setupId === null ? '' : String(body.setupId)
+		},
+		'complete'
+	);
+	if (!(await updatePart(build.id, Number(event.params.partId), stored)))
+		throw new ApiFailure(404, 'No such part.');
+	return json({ ok: true });
+});
 
 export const DELETE: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
