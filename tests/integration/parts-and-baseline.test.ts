@@ -28,7 +28,9 @@ describe('a stock baseline without the head off', () => {
 	it('publishes without squish or cylinder material; a later setup still needs them', async () => {
 		const u = await makeUser();
 		const b = await sheet(u.id);
-		const { squish: _s, kitMaterial: _k, ...untouched } = FIXTURE_SETUP;
+		const untouched: Record<string, string | number | boolean | null> = { ...FIXTURE_SETUP };
+		delete untouched.squish;
+		delete untouched.kitMaterial;
 		await saveSetup(b.id, { ...untouched, changeNote: 'Stock baseline', isStock: true });
 		expect(await publishProblems((await builds.read(b.id))!)).toEqual([]);
 		await saveSetup(b.id, { ...untouched, changeNote: '70 cc kit', isStock: false });
