@@ -37,6 +37,29 @@ test('the speed map narrows to GPS runs and expansion chambers, and its points c
 	await expect(settings.getByLabel('radar')).not.toBeChecked();
 });
 
+test('the speed map keeps marks off its axes, and draws no line across two clusters', async ({
+	page
+}) => {
+	await page.goto('/speed-map?x=displacement');
+	const svg = page.locator('.speed-map-chart svg:has([aria-label="dot"])');
+	await expect(svg).toBeVisible();
+	const gap = await svg.evaluate((el) => {
+		// The y axis is drawn where the x scale starts; every mark must sit to its right.
+		const axisX = Math.min(
+			...[...el.querySelectorAll('[aria-label="y-axis tick"] path')].map(
+				(p) => p.getBoundingClientRect().right
+			)
+		);
+		const marks = [...el.querySelectorAll('[aria-label="dot"] path, [aria-label="dot"] circle')];
+		const left = Math.min(...marks.map((m) => m.getBoundingClientRect().left));
+		return { left, axisX, marks: marks.length };
+	});
+	expect(gap.marks).toBeGreaterThan(0);
+	expect(gap.left).toBeGreaterThan(gap.axisX + 4);
+	await expect(page.getByText(/No trend line: the builds/)).toBeVisible();
+	await expect(page.getByText(/Trend \(least squares/)).toHaveCount(0);
+});
+
 test('change effects tells what a final-drive change did, with the pairs behind it', async ({
 	page
 }) => {

@@ -5,7 +5,7 @@ import { buildListSchema } from '../../src/lib/schemas/build-list';
 import { LIST_TUNING, listBuilds } from '../../src/lib/server/db/build-list';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
-import { MAX_POINTS, speedMap } from '../../src/lib/server/stats/speed-map';
+import { MAX_POINTS, speedMap, xSpread } from '../../src/lib/server/stats/speed-map';
 import { speedMapQuerySchema } from '../../src/lib/stats/schema';
 
 // Against the seeded demo sheets (invented, fixed seed) plus whatever earlier test files added.
@@ -52,8 +52,20 @@ describe('speed map', () => {
 		expect((await map({ x: 'exhaust' })).trend).toBeNull();
 	});
 
+	it('draws no trend line across clusters, and says why', async () => {
+		// The demo displacements are 50 cc stock and 68–70 cc kits: two clusters, one line between
+		// their averages. The page says so instead of drawing it.
+		const m = await map({ x: 'displacement' });
+		expect(m.total).toBeGreaterThan(20);
+		expect(m.trend).toBeNull();
+		expect(m.trendHidden).toMatch(/too few different values|separate clusters/);
+		expect(xSpread([5, 6, 20, 21])).toMatch(/separate clusters/);
+		expect(xSpread([1, 2])).toMatch(/too few/);
+		expect(xSpread([1, 2, 3, 5, 6])).toBeNull();
+	});
+
 	it('sends bins instead of points beyond the limit, with the same total and trend', async () => {
-		const q = speedMapQuerySchema.parse({ x: 'displacement' });
+		const q = speedMapQuerySchema.parse({ x: 'final-drive' });
 		const points = await speedMap(q);
 		const bins = await speedMap(q, 10);
 		expect(points.mode).toBe('points');

@@ -48,6 +48,8 @@ export type SpeedMap = {
 		from: number;
 		to: number;
 	} | null;
+	/** Why no trend line is drawn over numbers, in words; null when one is drawn. */
+	trendHidden: string | null;
 };
 
 // The index leads with the filters as lists of points (every value when a filter is not set), so a
@@ -140,7 +142,21 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 	const sums = noSums();
 	for (const g of groups)
 		addSums(sums, Object.fromEntries(Object.keys(noSums()).map((k) => [k, Number(g[k])])) as Sums);
-	const trend = numeric ? leastSquares(sums) : null;
+	const occupied = new Map<number, number>();
+	for (const g of groups) {
+		const xb = Math.floor(Number(g.k) / KEY_X) - KEY_X0;
+		occupied.set(xb, (occupied.get(xb) ?? 0) + Number(g.n));
+	}
+	const spread = numeric ? xSpread([...occupied.keys()]) : null;
+	const fitted = numeric && !spread ? leastSquares(sums) : null;
+	const trend = fitted;
+	const trendHidden = !numeric
+		? null
+		: spread
+			? spread
+			: fitted
+				? null
+				: 'No trend line: fewer than five builds, or every one at the same value.';
 	if (sums.n <= maxPoints) {
 		// Few enough to draw one by one: the points themselves, with their builds' titles.
 		const rows = sums.n
@@ -158,13 +174,14 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 			kmh: Number(r.kmh),
 			pipe: String(r.pipe)
 		}));
-		return { x: q.x, total: points.length, mode: 'points', points, bins: [], trend };
+		return { x: q.x, total: points.length, mode: 'points', points, bins: [], trend, trendHidden };
 	}
 	return {
 		x: q.x,
 		total: sums.n,
 		mode: 'bins',
 		trend,
+		trendHidden,
 		points: [],
 		bins: groups
 			.map((r) => {
@@ -183,6 +200,22 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 			})
 			.sort((a, b) => (a.x < b.x ? -1 : a.x > b.x ? 1 : a.y - b.y || a.pipe.localeCompare(b.pipe)))
 	};
+}
+
+/**
+ * Why the x values do not spread enough for a line through them to mean anything, or null when they
+ * do. A line through two clusters only joins their means: it needs values at four or more bins, and
+ * no empty stretch between them wider than half the range.
+ */
+export function xSpread(bins: number[]): string | null {
+	const xs = [...new Set(bins)].sort((a, b) => a - b);
+	if (xs.length < 4)
+		return 'No trend line: the builds sit at too few different values for a line to say anything.';
+	const range = xs[xs.length - 1] - xs[0];
+	const widest = Math.max(...xs.slice(1).map((x, i) => x - xs[i]));
+	if (widest > range / 2)
+		return 'No trend line: the builds fall into separate clusters, and a line between clusters only joins their averages.';
+	return null;
 }
 
 /** Ordinary least squares from the sums (any statistics text; the tests check it against simple-statistics). */
