@@ -59,7 +59,15 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 	await card.getByRole('button', { name: 'Triage as a concern' }).click();
 	await expect(card).toContainText('triaged as a concern');
 	await card.getByLabel('Reason').fill('advice to ride without a front brake');
-	await card.getByRole('button', { name: 'Take down' }).click();
+	// Enter in the reason field picks no action: nothing happens until a button is pressed.
+	await card.getByLabel('Reason').press('Enter');
+	await expect(card).toContainText('triaged as a concern');
+	// Taking down asks once more; the first answer here is no.
+	m.once('dialog', (d) => void d.dismiss());
+	await card.getByRole('button', { name: 'Take down…' }).click();
+	await expect(card).toBeVisible();
+	m.once('dialog', (d) => void d.accept());
+	await card.getByRole('button', { name: 'Take down…' }).click();
 	await expect(card).toHaveCount(0);
 
 	// Readers see the reason in place of the words.
@@ -89,6 +97,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 	await open(m, '/review');
 	card = caseCard(m, title);
 	await expect(card).toContainText('asks for another look');
+	await card.getByLabel('Reason').fill('changed to safe advice');
 	await card.getByRole('button', { name: 'Put back' }).click();
 	await expect(card).toHaveCount(0);
 	await open(r, `/builds/${build.id}?after=restore`);
@@ -101,4 +110,49 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 		.locator('td[data-action]')
 		.evaluateAll((tds) => tds.map((td) => td.getAttribute('data-action')));
 	expect(actions).toEqual(['triage', 'hide', 'second-look', 'restore']);
+});
+
+test('a moderator puts back a build taken down by mistake, from the log, with a reason', async ({
+	browser
+}) => {
+	const author = await makeUser();
+	const moderator = await makeUser({ role: 'moderator' });
+	const reporter = await makeUser();
+	const title = `Put back ${Date.now()}`;
+	const { build } = await publishedBuild(author.id, title);
+	const r = await as(browser, reporter);
+	await open(r, `/report?type=build&id=${build.id}`);
+	await r.getByLabel('Wrong or made-up figures').check();
+	await r.getByRole('button', { name: 'Send the report' }).click();
+	await expect(r.getByText(/Thank/)).toBeVisible();
+
+	const m = await as(browser, moderator);
+	await open(m, '/review');
+	const card = m
+		.getByRole('article')
+		.filter({ has: m.getByRole('link', { name: title, exact: true }) });
+	await card.getByLabel('Reason').fill('figures copied from another sheet');
+	m.once('dialog', (d) => void d.accept());
+	await card.getByRole('button', { name: 'Take down…' }).click();
+	await expect(card).toHaveCount(0);
+
+	// No case is open any more: the way back is the log, then the item's own desk page.
+	await open(m, `/review/log?itemType=build&itemId=${build.id}`);
+	await m
+		.getByRole('link', { name: `build ${build.id}` })
+		.first()
+		.click();
+	await expect(m.getByRole('heading', { level: 1 })).toHaveText(title);
+	await expect(m.getByText('figures copied from another sheet').first()).toBeVisible();
+	await m.getByRole('button', { name: 'Put back' }).click();
+	await expect(m.getByRole('alert')).toContainText('Say why it goes back up');
+	await m.getByLabel('Why it goes back up').fill('the owner sent the logger files');
+	await m.getByRole('button', { name: 'Put back' }).click();
+	await expect(m.getByText('Put back. Logged and mailed to the author.')).toBeVisible();
+	await expect(
+		m.getByRole('listitem').filter({ hasText: 'the owner sent the logger files' })
+	).toHaveCount(1);
+
+	await open(r, `/builds/${build.id}?after=put-back`);
+	await expect(r.getByRole('heading', { level: 1 })).toHaveText(title);
 });

@@ -7,7 +7,7 @@ import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/db/builds';
 import { models } from '../../src/lib/server/db/models';
 import { readCase } from '../../src/lib/server/moderation/cases';
-import { decide } from '../../src/lib/server/moderation/desk';
+import { decide, putBack } from '../../src/lib/server/moderation/desk';
 import * as log from '../../src/lib/server/moderation/log';
 import { fileReport } from '../../src/lib/server/moderation/reports';
 import { deliveredTo } from '../support/mail';
@@ -247,7 +247,12 @@ describe('reports, flags and the caution banner', () => {
 			'published'
 		]);
 		expect(hidden.story).toBe(before.story);
-		await decide(asUser(mod, 'moderator'), kase.id, { action: 'restore', reason: '' }, new Date());
+		await decide(
+			asUser(mod, 'moderator'),
+			kase.id,
+			{ action: 'restore', reason: 'checked again' },
+			new Date()
+		);
 		const back = (await builds.read(build.id))!.get({ plain: true });
 		expect({ ...back, updatedAt: null }).toEqual({ ...before, updatedAt: null });
 	});
@@ -270,5 +275,62 @@ describe('reports, flags and the caution banner', () => {
 		);
 		await editComment(author, c.id, 'Try a 94 main', now);
 		expect((await models().Comment.findByPk(c.id))?.body).toBe('Try a 94 main');
+	});
+});
+
+describe('putting back and who is mailed', () => {
+	async function takenDown() {
+		const owner = await makeUser();
+		const mod = asUser(await makeUser({ role: 'moderator' }), 'moderator');
+		const { build } = await publishedBuild(owner.id);
+		const ref = { type: 'build' as const, id: build.id };
+		await fileReport(asUser(await makeUser()), ref, { reason: 'spam', note: '' }, new Date());
+		const c = (await readCase(ref))!;
+		await decide(mod, c.id, { action: 'hide', reason: 'advertising' }, new Date());
+		return { owner, mod, build, ref };
+	}
+
+	it('puts back an item with no case on the desk, logged with its reason and mailed', async () => {
+		const { owner, mod, build, ref } = await takenDown();
+		expect((await readCase(ref))!.onDesk).toBe(false);
+		await putBack(mod, ref, 'the link was the owner’s own build log', new Date());
+		expect((await builds.read(build.id))!.moderation).toBe('visible');
+		const lines = await log.list({ itemType: 'build', itemId: build.id, order: 'oldest' });
+		expect(lines.map((l) => [l.action, l.reason])).toEqual([
+			['hide', 'advertising'],
+			['restore', 'the link was the owner’s own build log']
+		]);
+		const mail = await deliveredTo(owner.email);
+		expect(mail.map((m) => m.text).join('\n')).toContain('the owner’s own build log');
+	});
+
+	it('a failure writing the log line leaves the item down and the case as it was', async () => {
+		const { mod, build, ref } = await takenDown();
+		const before = (await readCase(ref))!.get({ plain: true });
+		const LogEntry = models().LogEntry;
+		const create = LogEntry.create.bind(LogEntry);
+		LogEntry.create = (() => Promise.reject(new Error('disk full'))) as never;
+		try {
+			await expect(putBack(mod, ref, 'try', new Date())).rejects.toThrow('disk full');
+		} finally {
+			LogEntry.create = create;
+		}
+		expect((await builds.read(build.id))!.moderation).toBe('hidden');
+		expect((await readCase(ref))!.get({ plain: true })).toEqual(before);
+	});
+
+	it('dismissing or triaging a report mails nobody; taking down mails the author', async () => {
+		const owner = await makeUser();
+		const mod = asUser(await makeUser({ role: 'moderator' }), 'moderator');
+		const { build } = await publishedBuild(owner.id);
+		const ref = { type: 'build' as const, id: build.id };
+		await fileReport(asUser(await makeUser()), ref, { reason: 'other', note: '' }, new Date());
+		const c = (await readCase(ref))!;
+		await decide(mod, c.id, { action: 'triage', reason: '' }, new Date());
+		await decide(mod, c.id, { action: 'dismiss', reason: '' }, new Date());
+		expect(await deliveredTo(owner.email)).toEqual([]);
+		await fileReport(asUser(await makeUser()), ref, { reason: 'other', note: '' }, new Date());
+		await decide(mod, c.id, { action: 'hide', reason: 'made-up figures' }, new Date());
+		expect(await deliveredTo(owner.email)).toHaveLength(1);
 	});
 });

@@ -126,6 +126,7 @@ const MATRIX: Record<string, Spec> = {
 	'/builds/[id]/runs/[runId]/edit ?/save': { policy: 'owner', ok: 400 },
 	'/builds/[id]/runs/[runId]/edit ?/remove': { policy: 'owner', ok: 303 },
 	'/builds/[id]/parts/[partId]/edit ?/save': { policy: 'owner', ok: 400 },
+	'/review/items/[type]/[id] ?/putBack': { policy: 'moderator', ok: 400 },
 	'/builds/[id]/parts/[partId]/edit ?/remove': { policy: 'owner', ok: 303 },
 	'/builds/[id]/setups/[setupId]/edit ?/save': { policy: 'owner', ok: 400 },
 	'/builds/[id]/setups/[setupId]/edit ?/remove': { policy: 'owner', ok: 303 },
@@ -312,6 +313,7 @@ function paramsFor(route: string, f: Fixture): Record<string, string> {
 		photoId: String(f.photoId),
 		commentId: String(f.commentId),
 		name: 'gearing',
+		type: 'build',
 		token: 'not-a-real-token'
 	};
 	const names = [...route.matchAll(/\[(\w+)\]/g)].map((m) => m[1]);

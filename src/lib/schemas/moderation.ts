@@ -58,3 +58,12 @@ export const deskActionSchema = z.object({
 	// 0 = until lifted; otherwise 1 to 365 days.
 	days: z.coerce.number().int().min(0).max(365).default(7)
 });
+
+/** Putting back an item the desk took down: always with the reason, logged and mailed. */
+export const putBackSchema = z.object({
+	reason: z
+		.string()
+		.trim()
+		.min(1, 'Say why it goes back up: the reason is logged and mailed to the author.')
+		.max(REASON_MAX, `Keep the reason under ${REASON_MAX} characters.`)
+});

@@ -6,7 +6,7 @@ import { deskActionSchema } from '$lib/schemas/moderation';
 import { clock } from '$lib/server/clock';
 import * as deskNotes from '$lib/server/db/desk-notes';
 import { requireRole } from '$lib/server/guard';
-import { decide, NEEDS_REASON } from '$lib/server/moderation/desk';
+import { decide, MAILED, NEEDS_REASON } from '$lib/server/moderation/desk';
 import { deskQueue } from '$lib/server/moderation/queue';
 import { parseForm } from '$lib/server/plain-form';
 import { LOG_LABEL } from '$lib/moderation/kinds';
@@ -47,7 +47,10 @@ export const actions: Actions = {
 			});
 		await decide(me, form.data.caseId, form.data, clock());
 		return {
-			done: { caseId, message: `${LOG_LABEL[form.data.action]}. Logged and mailed to the author.` }
+			done: {
+				caseId,
+				message: `${LOG_LABEL[form.data.action]}. Logged${MAILED.includes(form.data.action) ? ' and mailed to the author' : ''}.`
+			}
 		};
 	}
 };

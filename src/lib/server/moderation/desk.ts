@@ -2,6 +2,7 @@ import { error } from '@sveltejs/kit';
 import { ITEM_LABEL, type DeskAction } from '../../moderation/kinds';
 import { roleAllows } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
+import { db } from '../db/connection';
 import { models } from '../db/models';
 import * as users from '../db/users';
 import { deskDecision, suspensionNotice } from '../letters';
@@ -14,7 +15,10 @@ import * as log from './log';
 export type Decision = { action: DeskAction; reason: string; days?: number };
 
 /** Actions that must say why: the reason is shown to readers (hide) or mailed to the author. */
-export const NEEDS_REASON: readonly DeskAction[] = ['hide', 'warn', 'suspend'];
+export const NEEDS_REASON: readonly DeskAction[] = ['hide', 'restore', 'warn', 'suspend'];
+
+/** Decisions that change something for the author, and so are mailed to them; the rest are not. */
+export const MAILED: readonly DeskAction[] = ['hide', 'restore', 'warn'];
 
 async function mailAuthor(item: ItemInfo, action: string, reason: string, canAskAgain: boolean) {
 	const author = item.authorId ? await users.read(item.authorId) : null;
@@ -71,8 +75,41 @@ export async function decide(
 		return;
 	}
 	await log.append({ ...entry, action: d.action });
+	if (!MAILED.includes(d.action)) return;
 	const canAskAgain = d.action === 'hide' && c.secondLook === 'none';
 	await mailAuthor(item, d.action, d.reason.trim(), canAskAgain);
+}
+
+/**
+ * Puts back an item the desk took down, whether or not anyone asked: from the item's desk page or
+ * the log. The item, its case and the log line change together or not at all; the lists are then
+ * refreshed and the author told.
+ */
+export async function putBack(me: CurrentUser, ref: ItemRef, reason: string, now: Date) {
+	const item = await requireItem(ref);
+	if (!item.hidden) error(409, 'This item is not taken down.');
+	const why = reason.trim();
+	if (!why) error(400, 'Say why it goes back up: the reason is logged and mailed to the author.');
+	await db().transaction(async (transaction) => {
+		await setHidden(ref, null, transaction);
+		await models().ReviewCase.update(
+			{ onDesk: false, concern: false, caution: false, updatedAt: now },
+			{ where: { itemType: ref.type, itemId: ref.id }, transaction }
+		);
+		await log.append(
+			{
+				at: now,
+				actorId: me.id,
+				action: 'restore',
+				item: ref,
+				subjectId: item.authorId,
+				reason: why
+			},
+			transaction
+		);
+	});
+	await relist(item);
+	await mailAuthor(item, 'restore', why, false);
 }
 
 async function suspendAuthor(

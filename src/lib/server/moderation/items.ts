@@ -1,4 +1,5 @@
 import { error } from '@sveltejs/kit';
+import type { Transaction } from 'sequelize';
 import type { ItemType } from '../../moderation/kinds';
 import { models } from '../db/models';
 
@@ -101,12 +102,16 @@ export async function requireItem(ref: ItemRef): Promise<ItemInfo> {
  * state changes, never the publication state or the content, so restoring returns it exactly as
  * it was. No version bump: the author's open editor stays valid.
  */
-export async function setHidden(ref: ItemRef, reason: string | null): Promise<void> {
+export async function setHidden(
+	ref: ItemRef,
+	reason: string | null,
+	transaction?: Transaction
+): Promise<void> {
 	const { Build, Setup, Comment } = models();
 	const patch = reason
 		? { moderation: 'hidden' as const, hiddenReason: reason }
 		: { moderation: 'visible' as const, hiddenReason: null };
-	const where = { where: { id: ref.id } };
+	const where = { where: { id: ref.id }, transaction };
 	if (ref.type === 'build') await Build.update(patch, where);
 	else if (ref.type === 'setup') await Setup.update(patch, where);
 	else if (ref.type === 'comment') await Comment.update(patch, where);

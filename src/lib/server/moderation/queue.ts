@@ -9,6 +9,7 @@ import * as log from './log';
 export type CaseView = {
 	id: number;
 	itemType: ItemType;
+	itemId: number;
 	itemLabel: string;
 	title: string;
 	href: string;
@@ -63,6 +64,7 @@ export async function deskQueue(limit = 40): Promise<CaseView[]> {
 		return {
 			id: c.id,
 			itemType: c.itemType,
+			itemId: c.itemId,
 			itemLabel: ITEM_LABEL[c.itemType],
 			title: item?.title ?? 'an item that no longer exists',
 			href: item?.href ?? '#',
