@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it, vi } from 'vitest';
 import { loadCurrentUser } from '../../src/lib/server/auth/current-user';
 import { flushCommentDigests } from '../../src/lib/server/comment-digest';
 import { createComment, editComment } from '../../src/lib/server/comments';
@@ -307,13 +307,13 @@ describe('putting back and who is mailed', () => {
 	it('a failure writing the log line leaves the item down and the case as it was', async () => {
 		const { mod, build, ref } = await takenDown();
 		const before = (await readCase(ref))!.get({ plain: true });
-		const LogEntry = models().LogEntry;
-		const create = LogEntry.create.bind(LogEntry);
-		LogEntry.create = (() => Promise.reject(new Error('disk full'))) as never;
+		const spy = vi
+			.spyOn(models().LogEntry, 'create')
+			.mockRejectedValueOnce(new Error('disk full'));
 		try {
 			await expect(putBack(mod, ref, 'try', new Date())).rejects.toThrow('disk full');
 		} finally {
-			LogEntry.create = create;
+			spy.mockRestore();
 		}
 		expect((await builds.read(build.id))!.moderation).toBe('hidden');
 		expect((await readCase(ref))!.get({ plain: true })).toEqual(before);
