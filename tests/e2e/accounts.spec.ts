@@ -69,11 +69,30 @@ test('a member saves their profile', async ({ page }) => {
 	await expect(page).toHaveURL('/profile');
 	await page.getByLabel('Display name').fill('Renamed Rider');
 	await page.getByLabel(/Imperial/).check();
-	await page.getByLabel(/Occasional Squishline news/).check();
+	await page.getByRole('checkbox', { name: /Comments on my builds/ }).uncheck();
 	await page.getByRole('button', { name: 'Save profile' }).click();
 	await expect(page.getByRole('status')).toHaveText(/Saved/);
 	await page.reload();
 	await expect(page.getByLabel('Display name')).toHaveValue('Renamed Rider');
 	await expect(page.getByLabel(/Imperial/)).toBeChecked();
-	await expect(page.getByLabel(/Occasional Squishline news/)).toBeChecked();
+	await expect(page.getByRole('checkbox', { name: /Comments on my builds/ })).not.toBeChecked();
+});
+
+test('a member changes their password on the profile, is signed out, and signs in with the new one', async ({
+	page
+}) => {
+	const u = await makeUser({ password: 'first password 1' });
+	await signInWithPassword(page, u.email, 'first password 1', '/profile');
+	await expect(page.getByLabel(/news/i)).toHaveCount(0); // no mail option that sends nothing
+	await page.getByLabel('Current password').fill('not my password');
+	await page.getByLabel('New password', { exact: true }).fill('second password 2');
+	await page.getByLabel('New password again').fill('second password 2');
+	await page.getByRole('button', { name: 'Change the password' }).click();
+	await expect(page.getByText('That is not your current password.')).toBeVisible();
+	await expect(page.getByLabel('New password', { exact: true })).toHaveValue('second password 2');
+	await page.getByLabel('Current password').fill('first password 1');
+	await page.getByRole('button', { name: 'Change the password' }).click();
+	await expect(page.getByText(/Password changed, and every device signed out/)).toBeVisible();
+	await signInWithPassword(page, u.email, 'second password 2');
+	await expect(page.getByRole('banner')).toContainText('Sign out');
 });

@@ -18,6 +18,7 @@ async function shopWithPage(browser: Browser, name: string) {
 	await page.getByLabel('Region').fill('Lowfield');
 	await page.getByLabel('Services').fill('Kits fitted, jetting, CVT tuning.');
 	await page.getByRole('button', { name: 'Create the shop page' }).click();
+	await expect(page.getByText('Saved. Your shop page shows it now.')).toBeVisible();
 	await expect(page.getByRole('link', { name: `Your shop page: ${name}` })).toBeVisible();
 	return { account, page };
 }
@@ -63,6 +64,10 @@ test('a shop asks to be named on a build, the owner approves by mail, the admin 
 	const credit = reader.getByRole('list', { name: 'Shops named on this build' });
 	await expect(credit).toContainText(`tuned by ${name}`);
 	await expect(credit.getByText('verified shop')).toBeVisible();
+	// On the list, the stamp on the member's card names the shop.
+	await reader.goto(`/builds?q=${encodeURIComponent(title)}`);
+	const card = reader.getByRole('article').filter({ hasText: title });
+	await expect(card).toContainText(`verified shop: ${name}`);
 
 	// The same mailed link again: a clear page, nothing changed.
 	await o.goto(approve);

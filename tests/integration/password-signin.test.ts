@@ -1,6 +1,8 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it, vi } from 'vitest';
+import { changePassword } from '../../src/lib/server/accounts';
+import { checkPassword } from '../../src/lib/server/auth/password';
 import { verifyPasswordSignIn } from '../../src/lib/server/auth/password-signin';
-import { closeDb } from '../../src/lib/server/db/connection';
+import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as users from '../../src/lib/server/db/users';
 import { makeUser } from '../support/factories';
 
@@ -70,5 +72,43 @@ describe('password sign-in gate', () => {
 			ok: false,
 			code: 'unverified'
 		});
+	});
+});
+
+describe('changing the password from the profile', () => {
+	it('needs the current password, then sets the new one and ends every session together', async () => {
+		const u = await makeUser({ password: 'old password here' });
+		const before = (await users.read(u.id))!;
+		expect(await changePassword(u.id, 'not the old one', 'new password here')).toEqual({
+			ok: false,
+			field: 'current',
+			message: 'That is not your current password.'
+		});
+		expect(await changePassword(u.id, 'old password here', 'new password here')).toEqual({
+			ok: true
+		});
+		const after = (await users.read(u.id))!;
+		expect(await checkPassword(after.passwordHash!, 'new password here')).toBe(true);
+		expect(after.sessionGeneration).toBe(before.sessionGeneration + 1);
+	});
+
+	it('a failure ending the sessions leaves the old password in place', async () => {
+		const u = await makeUser({ password: 'old password here' });
+		// The password is written first; the session step then fails, so the write must roll back.
+		const real = db().query.bind(db());
+		const spy = vi.spyOn(db(), 'query').mockImplementation(((sql: unknown, ...rest: unknown[]) => {
+			if (String(sql).includes('session_generation = session_generation + 1'))
+				return Promise.reject(new Error('lost connection'));
+			return (real as (...a: unknown[]) => unknown)(sql, ...rest);
+		}) as never);
+		try {
+			await expect(changePassword(u.id, 'old password here', 'new password here')).rejects.toThrow(
+				'lost connection'
+			);
+		} finally {
+			spy.mockRestore();
+		}
+		const after = (await users.read(u.id))!;
+		expect(await checkPassword(after.passwordHash!, 'old password here')).toBe(true);
 	});
 });

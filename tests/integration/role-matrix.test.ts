@@ -136,6 +136,7 @@ const MATRIX: Record<string, Spec> = {
 	'/builds/new ?/create': { policy: 'member', ok: 400 },
 	'/profile ?/save': { policy: 'member', ok: 400 },
 	'/profile ?/signOutEverywhere': { policy: 'member', ok: 303 },
+	'/profile ?/password': { policy: 'member', ok: 400 },
 	'/report ?/default': { policy: 'member', ok: 400 },
 	'/review ?/note': { policy: 'moderator', ok: 400 },
 	'/review ?/decide': { policy: 'moderator', ok: 400 },

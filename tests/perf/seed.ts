@@ -121,7 +121,7 @@ export async function seed(N: number, rnd: () => number) {
 		await s.query(`TRUNCATE TABLE ${t}`);
 	await s.query('SET FOREIGN_KEY_CHECKS = 1');
 	await s.query(
-		`INSERT IGNORE INTO users (id, name, email, role, units, mail_comments, mail_shop, mail_news, created_at, updated_at) VALUES ('00000000-0000-4000-8000-00000000beef', 'Bench owner', 'bench@perf.squishline.test', 'member', 'metric', 0, 0, 0, NOW(), NOW())`
+		`INSERT IGNORE INTO users (id, name, email, role, units, mail_comments, mail_shop, created_at, updated_at) VALUES ('00000000-0000-4000-8000-00000000beef', 'Bench owner', 'bench@perf.squishline.test', 'member', 'metric', 0, 0, NOW(), NOW())`
 	);
 	let setupId = 0;
 	let partId = 0;

@@ -42,9 +42,16 @@ export const profileSchema = z.object({
 	name: z.string().trim().min(2, { error: 'Give a name of at least 2 characters.' }).max(80),
 	units: z.enum(['metric', 'imperial']),
 	mailComments: z.boolean().default(false),
-	mailShop: z.boolean().default(false),
-	mailNews: z.boolean().default(false)
+	mailShop: z.boolean().default(false)
 });
+
+/** Changing the password from the profile: the current one (when there is one), the new one twice. */
+export const changePasswordSchema = z
+	.object({ current: z.string().max(200).default(''), password, confirm: z.string() })
+	.refine((v) => v.password === v.confirm, {
+		path: ['confirm'],
+		error: 'The two passwords differ.'
+	});
 
 const HOME = 'http://squishline.invalid';
 

@@ -1,5 +1,5 @@
 import * as tokens from './auth/email-tokens';
-import { hashPassword } from './auth/password';
+import { checkPassword, hashPassword } from './auth/password';
 import { liftAccountLock } from './auth/password-signin';
 import { endAllSessions } from './auth/sessions';
 import { db } from './db/connection';
@@ -102,4 +102,25 @@ export async function resetPassword(token: string, password: string) {
 	const user = await users.read(used.userId);
 	if (user) await liftAccountLock(user.email);
 	return used;
+}
+
+/**
+ * A signed-in member changes their password, giving the current one (an account made by mailed
+ * link has none yet and simply sets one). The new password and the end of every session, this one
+ * too, happen together: whoever knew the old password is out.
+ */
+export async function changePassword(
+	userId: string,
+	current: string,
+	next: string
+): Promise<{ ok: true } | { ok: false; field: 'current'; message: string }> {
+	const user = await users.read(userId);
+	if (!user) return { ok: false, field: 'current', message: 'That account is gone.' };
+	if (user.passwordHash && !(await checkPassword(user.passwordHash, current)))
+		return { ok: false, field: 'current', message: 'That is not your current password.' };
+	await db().transaction(async (t) => {
+		await users.setPassword(userId, next, t);
+		await endAllSessions(userId, t);
+	});
+	return { ok: true };
 }

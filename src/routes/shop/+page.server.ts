@@ -87,7 +87,8 @@ export const actions: Actions = {
 		const form = await parseForm(event.request, shopSchema);
 		if (!form.ok) return fail(400, { page: { values: form.values, message: form.message } });
 		await saveShop(me, form.data);
-		done('page');
+		// The page says it was saved: a redirect alone looks the same as nothing happening.
+		redirect(303, '/shop?saved=page#page');
 	},
 	logo: async (event) => {
 		const me = requireUser(event);

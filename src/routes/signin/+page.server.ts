@@ -29,6 +29,7 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 		link,
 		reset: url.searchParams.has('reset'),
 		ended: url.searchParams.has('ended'),
+		passwordChanged: url.searchParams.has('password-changed'),
 		verified: url.searchParams.has('verified')
 	};
 };

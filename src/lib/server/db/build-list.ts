@@ -28,8 +28,8 @@ export type ListRow = {
 	exhaust: string | null;
 	elevationM: number | null;
 	photos: boolean;
-	/** Named (with the owner's agreement) by a shop an admin has verified. */
-	verifiedShop: boolean;
+	/** The name of a shop an admin has verified that the owner agreed to show on it, if any. */
+	verifiedShop: string | null;
 };
 
 // Each order walks an index (id; best speed, id; currency, parts total, id), so a page reads about its own
@@ -143,9 +143,9 @@ async function page(q: BuildListQuery, units: Units, text: string | null) {
 				b.currency, b.setup_count, b.run_count, u.name AS owner,
 				b.rep_cc, b.rep_pipe, b.rep_elevation_m,
 				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos,
-				EXISTS (SELECT 1 FROM shop_links sl JOIN shops sh ON sh.id = sl.shop_id
+				(SELECT sh.name FROM shop_links sl JOIN shops sh ON sh.id = sl.shop_id
 					WHERE sl.build_id = b.id AND sl.state = 'approved' AND sh.verified_at IS NOT NULL
-					AND sh.moderation = 'visible') AS verified_shop,
+					AND sh.moderation = 'visible' ORDER BY sl.id LIMIT 1) AS verified_shop,
 				b.owner_id IS NULL AS owner_gone
 			FROM builds b
 			LEFT JOIN users u ON u.id = b.owner_id
@@ -182,7 +182,7 @@ function toRow(x: Record<string, unknown>): ListRow {
 		exhaust: (x.rep_pipe as string) || null,
 		elevationM: n(x.rep_elevation_m),
 		photos: Boolean(Number(x.photos)),
-		verifiedShop: Boolean(Number(x.verified_shop))
+		verifiedShop: (x.verified_shop as string | null) ?? null
 	};
 }
 

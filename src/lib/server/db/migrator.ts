@@ -13,6 +13,7 @@ import * as m009 from './migrations/2026.12.02T06.00.00.moderation';
 import * as m010 from './migrations/2026.12.02T11.00.00.shops';
 import * as m011 from './migrations/2026.12.02T18.00.00.sessions-and-mail-queue';
 import * as m012 from './migrations/2026.12.02T21.00.00.cheapest-by-currency';
+import * as m013 from './migrations/2026.12.02T21.30.00.no-news-mail';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -29,7 +30,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T06.00.00.moderation', ...m009 },
 	{ name: '2026.12.02T11.00.00.shops', ...m010 },
 	{ name: '2026.12.02T18.00.00.sessions-and-mail-queue', ...m011 },
-	{ name: '2026.12.02T21.00.00.cheapest-by-currency', ...m012 }
+	{ name: '2026.12.02T21.00.00.cheapest-by-currency', ...m012 },
+	{ name: '2026.12.02T21.30.00.no-news-mail', ...m013 }
 ];
 
 export function migrator() {

@@ -10,7 +10,6 @@ export type UserPatch = Partial<
 		| 'units'
 		| 'mailComments'
 		| 'mailShop'
-		| 'mailNews'
 		| 'role'
 		| 'suspendedAt'
 		| 'suspendedReason'

@@ -24,7 +24,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 	declare units: CreationOptional<'metric' | 'imperial'>;
 	declare mailComments: CreationOptional<boolean>;
 	declare mailShop: CreationOptional<boolean>;
-	declare mailNews: CreationOptional<boolean>;
 	/** Sessions issued under an older generation are refused (auth/sessions.ts). */
 	declare sessionGeneration: CreationOptional<number>;
 	declare createdAt: CreationOptional<Date>;
@@ -50,7 +49,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 				},
 				mailComments: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
 				mailShop: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
-				mailNews: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				sessionGeneration: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
