@@ -102,3 +102,16 @@ test('a misspelt part name still finds its builds', async ({ page }) => {
 	await first.getByRole('link').click();
 	await expect(page.getByRole('region', { name: 'Parts' })).toContainText('Halvard');
 });
+
+test('the home page shows the community: the latest sheets and the newest steps that counted', async ({
+	page
+}) => {
+	await page.goto('/');
+	await expect(page.getByText('on their way')).toHaveCount(0);
+	const latest = page.getByRole('region', { name: 'Latest build sheets' });
+	await expect(latest.getByRole('article')).toHaveCount(6);
+	const steps = page.getByRole('region', { name: 'Newest steps that count in change effects' });
+	await expect(steps.getByRole('listitem').first()).toContainText(/[+−±]\d+\.\d\s?km\/h/);
+	await steps.getByRole('listitem').first().getByRole('link').click();
+	await expect(page).toHaveURL(/\/builds\/\d+$/);
+});

@@ -135,3 +135,31 @@ export async function stepsOf(buildId: number) {
 		return { from: prev.position, to: s.position, changeNote: s.changeNote, ...verdict };
 	});
 }
+
+export type RecentStep = Pair & { kind: string };
+
+/**
+ * The newest steps that count in change effects, for the home page: one query walking the setups
+ * newest first, stopping once it has enough (counted steps are common, so it reads few rows).
+ */
+export async function newestSteps(limit = 6): Promise<RecentStep[]> {
+	const rows = await db().query<Record<string, unknown>>(
+		`SELECT s.build_id, b.title, s.position, s.change_note, s.change_kind, p.best_run_kmh AS before_kmh,
+			s.best_run_kmh AS after_kmh, s.effect_kmh, s.best_run_method AS method
+		FROM setups s JOIN setups p ON p.id = s.prev_setup_id JOIN builds b ON b.id = s.build_id
+		WHERE s.any_listed = 1 AND s.effect_kmh IS NOT NULL
+		ORDER BY s.id DESC LIMIT :limit`,
+		{ replacements: { limit }, type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({
+		buildId: Number(r.build_id),
+		title: String(r.title),
+		position: Number(r.position),
+		changeNote: String(r.change_note),
+		kind: String(r.change_kind),
+		beforeKmh: Number(r.before_kmh),
+		afterKmh: Number(r.after_kmh),
+		deltaKmh: Number(r.effect_kmh),
+		method: String(r.method)
+	}));
+}
