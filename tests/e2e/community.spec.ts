@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import { open } from './support';
 
 // An anonymous newcomer asking the published sheets "what works?" (demo data: invented, fixed seed).
 
@@ -94,10 +95,11 @@ test('three builds side by side, with their differences marked', async ({ page }
 });
 
 test('a misspelt part name still finds its builds', async ({ page }) => {
-	await page.goto('/builds');
+	await open(page, '/builds');
+	// Typing is enough: the list follows once typing pauses, and the address with it.
 	await page.getByLabel('Search titles, stories and part names').fill('Halvrad');
-	await page.getByRole('button', { name: 'Show' }).click();
 	await expect(page.getByRole('status')).toContainText('Did you mean halvard?');
+	await expect(page).toHaveURL(/[?&]q=Halvrad/);
 	const first = page.getByRole('article').first();
 	await first.getByRole('link').click();
 	await expect(page.getByRole('region', { name: 'Parts' })).toContainText('Halvard');
@@ -114,4 +116,34 @@ test('the home page shows the community: the latest sheets and the newest steps 
 	await expect(steps.getByRole('listitem').first()).toContainText(/[+−±]\d+\.\d\s?km\/h/);
 	await steps.getByRole('listitem').first().getByRole('link').click();
 	await expect(page).toHaveURL(/\/builds\/\d+$/);
+});
+
+test.describe('filters on a phone', () => {
+	test.use({ viewport: { width: 390, height: 844 } });
+	test('apply as they change, with the address updated, and no trip back up to a button', async ({
+		page
+	}) => {
+		await open(page, '/builds');
+		await page.getByText('Filters', { exact: true }).click();
+		await page.getByLabel('Exhaust now').selectOption('expansion-chamber');
+		await expect(page).toHaveURL(/exhaust=expansion-chamber/);
+		await page.getByRole('checkbox', { name: 'with photos' }).check();
+		await expect(page).toHaveURL(/photos=1/);
+		await expect(page.getByRole('button', { name: 'Show' })).toHaveCount(0);
+		const cards = page.getByRole('article');
+		await expect(cards.first()).toBeVisible();
+		await page.reload();
+		await expect(page.getByLabel('Exhaust now')).toHaveValue('expansion-chamber');
+	});
+});
+
+test.describe('filters without JavaScript', () => {
+	test.use({ javaScriptEnabled: false });
+	test('still apply with the button at the end of the form', async ({ page }) => {
+		await page.goto('/builds');
+		await page.getByText('Filters', { exact: true }).click();
+		await page.getByLabel('Exhaust now').selectOption('stock');
+		await page.getByRole('button', { name: 'Show' }).click();
+		await expect(page).toHaveURL(/exhaust=stock/);
+	});
 });
