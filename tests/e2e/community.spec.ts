@@ -77,7 +77,7 @@ test('change effects tells what a final-drive change did, with the pairs behind 
 });
 
 test('three builds side by side, with their differences marked', async ({ page }) => {
-	await page.goto('/builds?view=table&q=one+change');
+	await open(page, '/builds?view=table&q=one+change');
 	const boxes = page.getByRole('checkbox', { name: /Pick .* for side by side/ });
 	await expect(boxes.first()).toBeVisible();
 	for (let i = 0; i < 3; i++) await boxes.nth(i).check();
@@ -146,4 +146,54 @@ test.describe('filters without JavaScript', () => {
 		await page.getByRole('button', { name: 'Show' }).click();
 		await expect(page).toHaveURL(/exhaust=stock/);
 	});
+});
+
+test('side by side picks from cards, a build page and the table, kept across pages, and says when it is full', async ({
+	page
+}) => {
+	await open(page, '/builds?sort=fastest');
+	const cards = page.getByRole('article');
+	const first = (await cards.nth(0).getByRole('heading').innerText()).trim();
+	await cards
+		.nth(0)
+		.getByRole('button', { name: /side by side/ })
+		.click();
+	await expect(cards.nth(0).getByRole('button', { name: /in side by side/ })).toHaveAttribute(
+		'aria-pressed',
+		'true'
+	);
+	// A build page further down the list.
+	const href = await cards.nth(5).getByRole('heading').getByRole('link').getAttribute('href');
+	await open(page, href!);
+	await page
+		.getByRole('button', { name: /^\+ side by side/ })
+		.first()
+		.click();
+	const trayBar = page.getByRole('complementary', { name: 'Picked for side by side' });
+	await expect(trayBar).toContainText('Side by side (2 of 4)');
+	await expect(trayBar).toContainText(first);
+	// The table, on another page of results: two more ticks fill it, a fifth is refused in words.
+	await open(page, '/builds?view=table&sort=newest');
+	const boxes = page.getByRole('checkbox', { name: /^Pick .* for side by side$/ });
+	let ticked = 0;
+	for (let i = 0; ticked < 3; i++) {
+		const box = boxes.nth(i);
+		if (await box.isChecked()) continue;
+		ticked++;
+		if (ticked < 3) await box.check();
+		else {
+			await box.click();
+			await expect(box).not.toBeChecked();
+			await expect(trayBar).toContainText('Side by side holds 4 builds');
+		}
+	}
+	await expect(trayBar).toContainText('Side by side (4 of 4)');
+	await trayBar.getByRole('link', { name: 'Compare' }).click();
+	await expect(page).toHaveURL(/\/side-by-side\?builds=\d+,\d+,\d+,\d+$/);
+	await expect(page.getByRole('table').locator('thead th')).toHaveCount(6); // marker, field, four
+});
+
+test('side by side says when more builds were asked for than fit', async ({ page }) => {
+	await page.goto('/side-by-side?builds=1,2,3,4,5');
+	await expect(page.getByRole('status').first()).toContainText('one more was left out');
 });
