@@ -90,6 +90,9 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 
 	const parts = page.getByRole('form', { name: 'Add a part' });
 	await parts.getByLabel('Category').selectOption('cylinder');
+	await parts
+		.getByLabel('First fitted in setup')
+		.selectOption({ label: '2. 70 cc kit, pipe, jet 92' });
 	await parts.getByLabel('Part').fill('Brannoch 70 cc cast-iron kit');
 	await parts.getByLabel('Cost').fill('189.00');
 	await parts.getByRole('button', { name: 'Add the part' }).click();
@@ -97,6 +100,9 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 		page.getByRole('cell', { name: 'Brannoch 70 cc cast-iron kit', exact: true })
 	).toBeVisible();
 	await parts.getByLabel('Category').selectOption('exhaust');
+	await parts
+		.getByLabel('First fitted in setup')
+		.selectOption({ label: '2. 70 cc kit, pipe, jet 92' });
 	await parts.getByLabel('Part').fill('Halvard expansion chamber');
 	await parts.getByLabel('Cost').fill('149.50');
 	await parts.getByRole('button', { name: 'Add the part' }).click();
@@ -128,6 +134,14 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(changes).toContainText('expansion chamber');
 	// (189.00 + 159.50) / (98 − 52) km/h = 7.576 per km/h.
 	await expect(page.getByTestId('cost-per-speed')).toHaveText('€7.58');
+	// The parts told as the build went: setup 2 fitted both, and its runs gave 98 − 52 = 46 km/h.
+	const spend = page.getByRole('region', { name: 'What each step cost' });
+	await expect(
+		spend.getByRole('heading', { name: 'Setup 2: 70 cc kit, pipe, jet 92' })
+	).toBeVisible();
+	await expect(spend.getByTestId('step-spend')).toHaveText(
+		/Step cost €348\.50\s+gave \+46\.0\skm\/h · €7\.58 per km\/h/
+	);
 	await expect(
 		page.getByText("above the tyre's speed symbol").filter({ visible: true }).first()
 	).toBeVisible();

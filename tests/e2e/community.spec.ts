@@ -102,7 +102,7 @@ test('a misspelt part name still finds its builds', async ({ page }) => {
 	await expect(page).toHaveURL(/[?&]q=Halvrad/);
 	const first = page.getByRole('article').first();
 	await first.getByRole('link').click();
-	await expect(page.getByRole('region', { name: 'Parts' })).toContainText('Halvard');
+	await expect(page.getByRole('region', { name: 'What each step cost' })).toContainText('Halvard');
 });
 
 test('the home page shows the community: the latest sheets and the newest steps that counted', async ({
