@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import { makeUser, open, signInWithPassword } from './support';
 
 test.use({ viewport: { width: 390, height: 844 } });
 
@@ -83,4 +84,64 @@ test('a build page on a phone: wide tables scroll from the keyboard, columns kee
 	await expect(worked.getByRole('cell', { name: '—', exact: true })).toHaveCount(0);
 	// Methods in words everywhere, the printed sheet (hidden on screen) included.
 	expect(await page.locator('main').textContent()).not.toMatch(/phone-gps|gps-logger/);
+});
+
+/** Controls smaller than 24 × 24 px (WCAG 2.2, 2.5.8); links inside running text are exempt. */
+async function smallTargets(page: import('@playwright/test').Page) {
+	return page.evaluate(() => {
+		const out: string[] = [];
+		const sel =
+			'button, select, input:not([type="hidden"]), summary, nav a, header a, td a, .btn, .btn-quiet';
+		for (const el of document.querySelectorAll<HTMLElement>(sel)) {
+			const r = el.getBoundingClientRect();
+			if (!r.width || !r.height || getComputedStyle(el).visibility === 'hidden') continue;
+			if (el.closest('.sr-only, [aria-hidden="true"], .print\\:block, [hidden]')) continue;
+			// A link in a cell beside other words reads as text; a cell that is just the link is a target.
+			if (
+				el.tagName === 'A' &&
+				el.closest('td') &&
+				el.closest('td')!.textContent!.trim() !== el.textContent!.trim()
+			)
+				continue;
+			if (r.height < 23.5 || r.width < 23.5)
+				out.push(
+					`${el.tagName.toLowerCase()} "${(el.textContent || el.getAttribute('aria-label') || '').trim().slice(0, 30)}" ${Math.round(r.width)}×${Math.round(r.height)}`
+				);
+		}
+		return out;
+	});
+}
+
+test('on a phone the header stays short, its mark is not a menu button, and controls are big enough to hit', async ({
+	page
+}) => {
+	const u = await makeUser();
+	await signInWithPassword(page, u.email, u.password);
+	await open(page, '/builds?view=table');
+	const header = await page.getByRole('banner').boundingBox();
+	expect(header!.height).toBeLessThan(120);
+	expect(await smallTargets(page)).toEqual([]);
+	const href = await page
+		.getByRole('link', { name: /./ })
+		.evaluateAll((as) =>
+			as.map((a) => (a as HTMLAnchorElement).pathname).find((p) => /^\/builds\/\d+$/.test(p))
+		);
+	await open(page, href!);
+	expect(await smallTargets(page)).toEqual([]);
+	await open(page, '/builds/new');
+	expect(await smallTargets(page)).toEqual([]);
+	// Wide tables of the desk and the admin pages scroll inside their box, not the whole page.
+	const admin = await makeUser({ role: 'admin' });
+	const ctx = await page
+		.context()
+		.browser()!
+		.newContext({ viewport: { width: 390, height: 844 } });
+	const a = await ctx.newPage();
+	await signInWithPassword(a, admin.email, admin.password);
+	for (const path of ['/admin', '/review/log', '/admin/shops']) {
+		await open(a, path);
+		const wide = await a.evaluate(() => document.documentElement.scrollWidth);
+		expect(wide, path).toBeLessThanOrEqual(390);
+	}
+	await ctx.close();
 });
