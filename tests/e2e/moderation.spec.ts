@@ -53,7 +53,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 
 	// The moderator triages it, then takes it down with a reason.
 	const m = await as(browser, moderator);
-	await open(m, '/review');
+	await open(m, '/review?order=newest');
 	let card = caseCard(m, title);
 	await expect(card).toContainText('Tells people to ride without a front brake.');
 	await card.getByRole('button', { name: 'Triage as a concern' }).click();
@@ -94,7 +94,7 @@ test('a reported comment is triaged, taken down, changed, looked at again and pu
 	await expect(hidden).toContainText('You asked for another look');
 
 	// The moderator puts it back.
-	await open(m, '/review');
+	await open(m, '/review?order=newest');
 	card = caseCard(m, title);
 	await expect(card).toContainText('asks for another look');
 	await card.getByLabel('Reason').fill('changed to safe advice');
@@ -127,7 +127,7 @@ test('a moderator puts back a build taken down by mistake, from the log, with a 
 	await expect(r.getByText(/Thank/)).toBeVisible();
 
 	const m = await as(browser, moderator);
-	await open(m, '/review');
+	await open(m, '/review?order=newest');
 	const card = m
 		.getByRole('article')
 		.filter({ has: m.getByRole('link', { name: title, exact: true }) });

@@ -28,7 +28,12 @@ async function matchesApi(page: Page, name: CalculatorName) {
 	const api = (await res.json()) as CalcResult;
 	const onPage = await shown(page);
 	expect(Object.keys(onPage).sort()).toEqual(api.rows.map((r) => r.key).sort());
-	for (const r of api.rows) expect(onPage[r.key], r.key).toBe(r.value.toFixed(r.decimals));
+	// The same decimals as the API's value; a change (signed) with its + or − sign.
+	for (const r of api.rows) {
+		const plain = Math.abs(r.value).toFixed(r.decimals);
+		const sign = Number(plain) === 0 ? '' : r.value < 0 ? '\u2212' : r.signed ? '+' : '';
+		expect(onPage[r.key], r.key).toBe(sign + plain);
+	}
 	return { api, onPage };
 }
 

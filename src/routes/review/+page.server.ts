@@ -7,19 +7,26 @@ import { clock } from '$lib/server/clock';
 import * as deskNotes from '$lib/server/db/desk-notes';
 import { requireRole } from '$lib/server/guard';
 import { decide, MAILED, NEEDS_REASON } from '$lib/server/moderation/desk';
-import { deskQueue } from '$lib/server/moderation/queue';
+import { deskCount, deskCursor, deskQueue } from '$lib/server/moderation/queue';
 import { parseForm } from '$lib/server/plain-form';
 import { LOG_LABEL } from '$lib/moderation/kinds';
 import type { Actions, PageServerLoad } from './$types';
 
+const PAGE = 40;
+
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'moderator');
-	const [queue, notes, form] = await Promise.all([
-		deskQueue(),
+	const q = event.url.searchParams;
+	const order = q.get('order') === 'newest' ? 'newest' : 'oldest';
+	const after = q.get('after') ?? undefined;
+	const [queue, waiting, notes, form] = await Promise.all([
+		deskQueue({ order, after, limit: PAGE }),
+		deskCount(),
 		deskNotes.list(),
 		superValidate(zod4(deskNoteSchema))
 	]);
-	return { queue, notes, form };
+	const next = queue.length === PAGE ? deskCursor(queue.at(-1)!) : null;
+	return { queue, waiting, order, paged: Boolean(after), next, notes, form };
 };
 
 export const actions: Actions = {

@@ -26,16 +26,40 @@ export type CaseView = {
 	history: log.LogView[];
 };
 
-/** The desk's list: items waiting for a decision, oldest first, each with everything needed to decide. */
-export async function deskQueue(limit = 40): Promise<CaseView[]> {
+export type DeskPage = { order: 'oldest' | 'newest'; after?: string; limit?: number };
+
+/** How many cases wait on the desk in all (a page shows part of them). */
+export async function deskCount(): Promise<number> {
+	return models().ReviewCase.count({ where: { onDesk: true } });
+}
+
+/** The key of a case in the desk's order, for the next page's link. */
+export const deskCursor = (c: { openedAt: string; id: number }) => `${c.openedAt}|${c.id}`;
+
+/**
+ * The desk's list: items waiting for a decision, a page at a time, oldest first unless asked
+ * otherwise, each with everything needed to decide. `after` is the last case of the page before.
+ */
+export async function deskQueue(p: DeskPage = { order: 'oldest' }): Promise<CaseView[]> {
 	const { ReviewCase, Report, Flag, User } = models();
+	const newest = p.order === 'newest';
+	const [at, id] = (p.after ?? '').split('|');
+	const when = new Date(at);
+	const cmp = newest ? Op.lt : Op.gt;
+	const after =
+		p.after && !Number.isNaN(when.getTime()) && Number.isInteger(Number(id))
+			? {
+					[Op.or]: [{ openedAt: { [cmp]: when } }, { openedAt: when, id: { [cmp]: Number(id) } }]
+				}
+			: {};
+	const dir = newest ? 'DESC' : 'ASC';
 	const cases = await ReviewCase.findAll({
-		where: { onDesk: true },
+		where: { onDesk: true, ...after },
 		order: [
-			['openedAt', 'ASC'],
-			['id', 'ASC']
+			['openedAt', dir],
+			['id', dir]
 		],
-		limit
+		limit: p.limit ?? 40
 	});
 	if (!cases.length) return [];
 	const keys = cases.map((c) => ({ itemType: c.itemType, itemId: c.itemId }));
