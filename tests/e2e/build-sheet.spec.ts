@@ -142,6 +142,12 @@ test('a member records a build with a baseline, a second setup, runs and parts, 
 	await expect(spend.getByTestId('step-spend')).toHaveText(
 		/Step cost €348\.50\s+gave \+46\.0\skm\/h · €7\.58 per km\/h/
 	);
+	// The printed sheet tells the parts the same way.
+	await page.emulateMedia({ media: 'print' });
+	await expect(
+		page.getByRole('row', { name: /Setup 2: 70 cc kit, pipe, jet 92 €348\.50/ })
+	).toBeVisible();
+	await page.emulateMedia({ media: 'screen' });
 	await expect(
 		page.getByText("above the tyre's speed symbol").filter({ visible: true }).first()
 	).toBeVisible();
