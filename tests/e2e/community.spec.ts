@@ -127,8 +127,8 @@ test.describe('filters on a phone', () => {
 		await page.getByText('Filters', { exact: true }).click();
 		await page.getByLabel('Exhaust now').selectOption('expansion-chamber');
 		await expect(page).toHaveURL(/exhaust=expansion-chamber/);
-		await page.getByRole('checkbox', { name: 'with photos' }).check();
-		await expect(page).toHaveURL(/photos=1/);
+		await page.getByRole('checkbox', { name: 'with measured runs' }).check();
+		await expect(page).toHaveURL(/runs=1/);
 		await expect(page.getByRole('button', { name: 'Show' })).toHaveCount(0);
 		const cards = page.getByRole('article');
 		await expect(cards.first()).toBeVisible();
