@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Field } from '../../sheet/fields';
+import { PART_FIELDS, type Field } from '../../sheet/fields';
 import { schemaFor, toStored, type Mode } from '../../sheet/schema';
 import { parse } from '../api';
 
@@ -18,3 +18,10 @@ export function sheetBody(name: string, fields: Field[], body: unknown, mode: Mo
 
 export const versionOf = (body: unknown) =>
 	parse(z.object({ version: z.number().int().min(0) }), body).version;
+
+/** A part as JSON: like its form, with the setup it was fitted in as a number or null. */
+export function partBody(body: unknown) {
+	const b = (body ?? {}) as Record<string, unknown>;
+	const setupId = b.setupId === undefined || b.setupId === null ? '' : String(b.setupId);
+	return sheetBody('part', PART_FIELDS, { ...b, setupId }, 'complete');
+}

@@ -2,9 +2,8 @@ import { json } from '@sveltejs/kit';
 import { api, created, readJson } from '$lib/server/api';
 import * as parts from '$lib/server/db/parts';
 import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
-import { sheetBody } from '$lib/server/sheets/api-bodies';
+import { partBody } from '$lib/server/sheets/api-bodies';
 import { addPart } from '$lib/server/sheets/service';
-import { PART_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = api(async (event) => {
@@ -25,16 +24,6 @@ export const GET: RequestHandler = api(async (event) => {
 
 export const POST: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
-	const body = (await readJson(event.request)) as Record<string, unknown>;
-	const stored = sheetBody(
-		'part',
-		PART_FIELDS,
-		{
-			...body,
-			setupId: body?.setupId === undefined || body?.setupId === null ? '' : String(body.setupId)
-		},
-		'complete'
-	);
-	await addPart(build.id, stored);
+	await addPart(build.id, partBody(await readJson(event.request)));
 	return created({ ok: true });
 });

@@ -2,24 +2,14 @@ import { json } from '@sveltejs/kit';
 import { api, noContent, readJson } from '$lib/server/api';
 import { ApiFailure } from '$lib/server/failure';
 import { editBuild, idParam } from '$lib/server/sheets/access';
-import { sheetBody } from '$lib/server/sheets/api-bodies';
+import { partBody } from '$lib/server/sheets/api-bodies';
 import { removePart, updatePart } from '$lib/server/sheets/service';
-import { PART_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 
 /** The whole part, as POST on the list takes it. */
 export const PUT: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
-	const body = (await readJson(event.request)) as Record<string, unknown>;
-	const stored = sheetBody(
-		'part',
-		PART_FIELDS,
-		{
-			...body,
-			setupId: body?.setupId === undefined || body?.setupId === null ? '' : String(body.setupId)
-		},
-		'complete'
-	);
+	const stored = partBody(await readJson(event.request));
 	if (!(await updatePart(build.id, Number(event.params.partId), stored)))
 		throw new ApiFailure(404, 'No such part.');
 	return json({ ok: true });
