@@ -3,7 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { closeDb, db } from '../src/lib/server/db/connection';
 import { applyAppGrants } from '../src/lib/server/db/grants';
 import { migrator } from '../src/lib/server/db/migrator';
-import { refreshSteps } from '../src/lib/server/sheets/recompute';
+import { refreshSteps } from '../src/lib/server/derived/recompute';
 
 const done = await migrator().up();
 console.log(

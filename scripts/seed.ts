@@ -1,7 +1,7 @@
 // Loads the invented demo scenario. Safe to run again: whatever exists is left as it is.
 import fs from 'node:fs';
 import { closeDb } from '../src/lib/server/db/connection';
-import * as users from '../src/lib/server/db/users';
+import * as users from '../src/lib/server/auth/users';
 import type { Role } from '../src/lib/roles';
 import { seedBuilds } from './demo/builds';
 import { seedOneChange } from './demo/one-change';

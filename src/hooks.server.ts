@@ -4,14 +4,14 @@ import { authHandle } from '$lib/server/auth';
 import { clientAddress } from '$lib/server/auth/client-address';
 import { loadCurrentUser } from '$lib/server/auth/current-user';
 import { forgetExpired } from '$lib/server/auth/sessions';
-import { bodyLimit } from '$lib/server/body-limits';
-import { flushCommentDigests } from '$lib/server/comment-digest';
-import '$lib/server/mail';
-import { flushMailQueue } from '$lib/server/mail-queue';
+import { bodyLimit } from '$lib/server/web/body-limits';
+import { flushCommentDigests } from '$lib/server/comments/digest';
+import '$lib/server/mail/send';
+import { flushMailQueue } from '$lib/server/mail/queue';
 import { closeDb } from '$lib/server/db/connection';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
-import { originCheck, pinHost } from '$lib/server/origin-check';
-import { withSecurityHeaders } from '$lib/server/security-headers';
+import { originCheck, pinHost } from '$lib/server/web/origin-check';
+import { withSecurityHeaders } from '$lib/server/web/security-headers';
 
 const currentUser: Handle = async ({ event, resolve }) => {
 	const session = await event.locals.auth();

@@ -1,9 +1,9 @@
 // Sixty invented build sheets: stock 50 cc scooters through 70 cc kits with expansion chambers,
 // tuned at sea level up to 2,000 m in every season. Fixed seed, so every start makes the same set.
 import { gearingLimitedSpeedKmh } from '../../src/lib/tuning';
-import * as builds from '../../src/lib/server/db/builds';
+import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
-import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
 
 function mulberry32(seed: number) {
 	return () => {

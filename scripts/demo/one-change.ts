@@ -3,9 +3,9 @@
 // measured the same day with the same method — the material change effects is made of. A few steps
 // break the rules on purpose (a radar run after a GPS one, a summer run after a winter one) so the
 // page has excluded pairs to explain. Fixed seed, like the other demo sheets.
-import * as builds from '../../src/lib/server/db/builds';
+import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
-import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
 import { gearingLimitOf, type Config } from './builds';
 
 type Step = {

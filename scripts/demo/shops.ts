@@ -4,7 +4,7 @@
 import sharp from 'sharp';
 import { Op } from 'sequelize';
 import { models } from '../../src/lib/server/db/models';
-import * as users from '../../src/lib/server/db/users';
+import * as users from '../../src/lib/server/auth/users';
 import { setLogo } from '../../src/lib/server/shops/logo';
 
 const PAGES = [

@@ -1,5 +1,5 @@
 import { roleAllows } from '$lib/roles';
-import { outboxDir } from '$lib/server/outbox';
+import { outboxDir } from '$lib/server/mail/outbox';
 import { models } from '$lib/server/db/models';
 import type { LayoutServerLoad } from './$types';
 

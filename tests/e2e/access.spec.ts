@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import * as users from '../../src/lib/server/db/users';
+import * as users from '../../src/lib/server/auth/users';
 import { demoAccount, makeUser, signInWithPassword } from './support';
 
 const origin = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:3100';

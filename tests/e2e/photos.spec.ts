@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { models } from '../../src/lib/server/db/models';
-import { objectExists } from '../../src/lib/server/storage';
+import { objectExists } from '../../src/lib/server/storage/objects';
 import { phonePhoto, smallPng } from '../support/photos';
 import { makeUser, signInWithPassword } from './support';
 

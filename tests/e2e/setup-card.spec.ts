@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
-import * as builds from '../../src/lib/server/db/builds';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import * as builds from '../../src/lib/server/sheet/builds';
+import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 import { makeUser, signInWithPassword } from './support';
 

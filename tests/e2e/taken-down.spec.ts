@@ -1,8 +1,8 @@
 import { expect, test } from '@playwright/test';
 import type { CurrentUser } from '../../src/lib/server/auth/current-user';
 import { models } from '../../src/lib/server/db/models';
-import { decide } from '../../src/lib/server/moderation/desk';
-import { fileReport } from '../../src/lib/server/moderation/reports';
+import { decide } from '../../src/lib/server/review/desk';
+import { fileReport } from '../../src/lib/server/review/reports';
 import { publishedBuild } from '../support/moderation-fixtures';
 import { makeUser } from './support';
 

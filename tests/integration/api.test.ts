@@ -2,11 +2,11 @@ import Ajv2020 from 'ajv/dist/2020';
 import sharp from 'sharp';
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import * as builds from '../../src/lib/server/db/builds';
-import { exportBuild } from '../../src/lib/server/sheets/export';
-import { saveRun, saveSetup } from '../../src/lib/server/sheets/service';
-import { addPhoto } from '../../src/lib/server/sheets/photos';
-import { objectExists } from '../../src/lib/server/storage';
+import * as builds from '../../src/lib/server/sheet/builds';
+import { exportBuild } from '../../src/lib/server/sheet/export';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { addPhoto } from '../../src/lib/server/sheet/photos';
+import { objectExists } from '../../src/lib/server/storage/objects';
 import { GET as photoGet } from '../../src/routes/api/photos/[id]/[size]/+server';
 import { POST as buildsPost } from '../../src/routes/api/builds/+server';
 import {

@@ -1,11 +1,11 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import * as t from '../../src/lib/tuning';
 import { closeDb } from '../../src/lib/server/db/connection';
-import * as builds from '../../src/lib/server/db/builds';
+import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
-import { renderMarkdown } from '../../src/lib/server/markdown';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
-import { buildView } from '../../src/lib/server/sheets/view';
+import { renderMarkdown } from '../../src/lib/server/text/markdown';
+import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { buildView } from '../../src/lib/server/sheet/view';
 import { load as viewLoad } from '../../src/routes/builds/[id]/+page.server';
 import {
 	actions as editActions,

@@ -1,10 +1,10 @@
 import { quantile } from 'd3-array';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import * as builds from '../../src/lib/server/db/builds';
+import * as builds from '../../src/lib/server/sheet/builds';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
 import { pairsFor, stepsOf, summarise } from '../../src/lib/server/stats/change-effects';
 import { makeUser } from '../support/factories';
 import { FIXTURE_SETUP, fixtureRun, type FixtureAir } from '../support/sheet-fixtures';

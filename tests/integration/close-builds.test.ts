@@ -1,10 +1,10 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { closeDb, db } from '../../src/lib/server/db/connection';
-import * as builds from '../../src/lib/server/db/builds';
+import * as builds from '../../src/lib/server/sheet/builds';
 import { BAND } from '../../src/lib/close/weights';
 import { closeBuilds, rankClose, targetFrom } from '../../src/lib/server/close/service';
-import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
 import { makeUser } from '../support/factories';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 

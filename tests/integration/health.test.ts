@@ -4,8 +4,8 @@ import path from 'node:path';
 import S3rver from 's3rver';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import { forgetMailCheck } from '../../src/lib/server/health';
-import { mailer } from '../../src/lib/server/mail';
+import { forgetMailCheck } from '../../src/lib/server/web/health';
+import { mailer } from '../../src/lib/server/mail/send';
 import { GET } from '../../src/routes/api/health/+server';
 
 // The health route against the real database and mail server, with an object store of the

@@ -1,13 +1,13 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import * as builds from '../../src/lib/server/db/builds';
-import * as parts from '../../src/lib/server/db/parts';
+import * as builds from '../../src/lib/server/sheet/builds';
+import * as parts from '../../src/lib/server/sheet/parts';
 import {
 	addPart,
 	publishProblems,
 	saveSetup,
 	updatePart
-} from '../../src/lib/server/sheets/service';
+} from '../../src/lib/server/sheet/service';
 import { PUT as partPut } from '../../src/routes/api/builds/[id]/parts/[partId]/+server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';

@@ -1,9 +1,9 @@
 import { afterAll, describe, expect, it, vi } from 'vitest';
-import { changePassword } from '../../src/lib/server/accounts';
+import { changePassword } from '../../src/lib/server/accounts/flows';
 import { checkPassword } from '../../src/lib/server/auth/password';
 import { verifyPasswordSignIn } from '../../src/lib/server/auth/password-signin';
 import { closeDb, db } from '../../src/lib/server/db/connection';
-import * as users from '../../src/lib/server/db/users';
+import * as users from '../../src/lib/server/auth/users';
 import { makeUser } from '../support/factories';
 
 let n = 0;

@@ -1,11 +1,11 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import * as builds from '../../src/lib/server/db/builds';
-import * as runs from '../../src/lib/server/db/runs';
-import * as setups from '../../src/lib/server/db/setups';
+import * as builds from '../../src/lib/server/sheet/builds';
+import * as runs from '../../src/lib/server/sheet/runs';
+import * as setups from '../../src/lib/server/sheet/setups';
 import type { SetupConfig } from '../../src/lib/server/db/models/setup';
-import { exportBuild } from '../../src/lib/server/sheets/export';
-import { saveRun, saveSetup } from '../../src/lib/server/sheets/service';
+import { exportBuild } from '../../src/lib/server/sheet/export';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { makeUser } from '../support/factories';
 
 afterAll(closeDb);

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CurrentUser } from '../../src/lib/server/auth/current-user';
 import { closeDb } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
-import { addPart } from '../../src/lib/server/sheets/service';
+import { addPart } from '../../src/lib/server/sheet/service';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';

@@ -2,7 +2,7 @@ import { linearRegression, sampleCorrelation } from 'simple-statistics';
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { buildListSchema } from '../../src/lib/schemas/build-list';
-import { LIST_TUNING, listBuilds } from '../../src/lib/server/db/build-list';
+import { LIST_TUNING, listBuilds } from '../../src/lib/server/search/build-list';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { MAX_POINTS, speedMap, xSpread } from '../../src/lib/server/stats/speed-map';

@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import { setHidden } from '../../src/lib/server/moderation/items';
-import { saveRun, saveSetup } from '../../src/lib/server/sheets/service';
+import { setHidden } from '../../src/lib/server/review/items';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { GET as getBuild } from '../../src/routes/api/builds/[id]/+server';
 import { GET as getExport } from '../../src/routes/api/builds/[id]/export/+server';
 import { GET as getCsv } from '../../src/routes/api/builds/[id]/runs.csv/+server';

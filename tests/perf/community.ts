@@ -1,7 +1,7 @@
 // The builds list, the speed map, change effects and search at scale, each through the function its
 // route calls.
 import { buildListSchema } from '../../src/lib/schemas/build-list';
-import { listBuilds } from '../../src/lib/server/db/build-list';
+import { listBuilds } from '../../src/lib/server/search/build-list';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { pairsFor, summarise } from '../../src/lib/server/stats/change-effects';
 import { speedMap } from '../../src/lib/server/stats/speed-map';

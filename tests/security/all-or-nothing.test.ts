@@ -1,12 +1,12 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
-import { resetPassword } from '../../src/lib/server/accounts';
+import { resetPassword } from '../../src/lib/server/accounts/flows';
 import { endSessionsOf } from '../../src/lib/server/admin/users';
 import * as tokens from '../../src/lib/server/auth/email-tokens';
 import { checkPassword } from '../../src/lib/server/auth/password';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
-import * as users from '../../src/lib/server/db/users';
+import * as users from '../../src/lib/server/auth/users';
 import { makeUser } from '../support/factories';
 
 afterAll(closeDb);

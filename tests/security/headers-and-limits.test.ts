@@ -1,9 +1,9 @@
 import http from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import * as users from '../../src/lib/server/db/users';
-import { compose } from '../../src/lib/server/mail';
-import { unsubscribeUrl } from '../../src/lib/server/unsubscribe';
+import * as users from '../../src/lib/server/auth/users';
+import { compose } from '../../src/lib/server/mail/send';
+import { unsubscribeUrl } from '../../src/lib/server/mail/unsubscribe';
 import { makeUser } from '../support/factories';
 import { Client, startApp, type App } from './support/app';
 

@@ -1,11 +1,11 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signUp } from '../../src/lib/server/accounts';
+import { signUp } from '../../src/lib/server/accounts/flows';
 import { db } from '../../src/lib/server/db/connection';
-import * as users from '../../src/lib/server/db/users';
-import { deliver } from '../../src/lib/server/mail';
-import { backoffMs, flushMailQueue } from '../../src/lib/server/mail-queue';
-import type { Letter } from '../../src/lib/server/mail';
+import * as users from '../../src/lib/server/auth/users';
+import { deliver } from '../../src/lib/server/mail/send';
+import { backoffMs, flushMailQueue } from '../../src/lib/server/mail/queue';
+import type { Letter } from '../../src/lib/server/mail/send';
 import { deliveredTo } from '../support/mail';
 import { Client, startApp, type App } from './support/app';
 

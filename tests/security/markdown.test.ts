@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { renderMarkdown } from '../../src/lib/server/markdown';
+import { renderMarkdown } from '../../src/lib/server/text/markdown';
 
 // What member-written Markdown may become. The browser check that nothing covers the page is in
 // tests/security/xss.spec.ts; these pin the allow-list itself.

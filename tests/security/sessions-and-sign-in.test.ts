@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
 import { verifyPasswordSignIn } from '../../src/lib/server/auth/password-signin';
 import { models } from '../../src/lib/server/db/models';
-import { listMail } from '../../src/lib/server/outbox';
+import { listMail } from '../../src/lib/server/mail/outbox';
 import { makeUser } from '../support/factories';
 import { Client, startApp, type App } from './support/app';
 

@@ -6,11 +6,11 @@ import zlib from 'node:zlib';
 import { ListObjectsV2Command } from '@aws-sdk/client-s3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
-import * as builds from '../../src/lib/server/db/builds';
+import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
-import * as setups from '../../src/lib/server/db/setups';
+import * as setups from '../../src/lib/server/sheet/setups';
 import type { SetupConfig } from '../../src/lib/server/db/models/setup';
-import { ApiFailure } from '../../src/lib/server/failure';
+import { ApiFailure } from '../../src/lib/failure';
 import {
 	addPhoto,
 	PHOTO_MAX_COUNT,
@@ -18,9 +18,13 @@ import {
 	STORAGE_DOWN,
 	updatePhoto,
 	withImage
-} from '../../src/lib/server/sheets/photos';
-import { addPart } from '../../src/lib/server/sheets/service';
-import { flushLateDeletes, getObjectForReader, storage } from '../../src/lib/server/storage';
+} from '../../src/lib/server/sheet/photos';
+import { addPart } from '../../src/lib/server/sheet/service';
+import {
+	flushLateDeletes,
+	getObjectForReader,
+	storage
+} from '../../src/lib/server/storage/objects';
 import { makeUser } from '../support/factories';
 import { smallPng } from '../support/photos';
 

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { Role } from '../../src/lib/roles';
-import * as users from '../../src/lib/server/db/users';
+import * as users from '../../src/lib/server/auth/users';
 
 /** A fresh account with a unique address, so tests never step on the demo data or each other. */
 export async function makeUser(

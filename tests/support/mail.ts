@@ -1,8 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { db } from '../../src/lib/server/db/connection';
-import '../../src/lib/server/mail';
-import { flushMailQueue } from '../../src/lib/server/mail-queue';
-import { listMail } from '../../src/lib/server/outbox';
+import '../../src/lib/server/mail/send';
+import { flushMailQueue } from '../../src/lib/server/mail/queue';
+import { listMail } from '../../src/lib/server/mail/outbox';
 
 /** Sends what is queued for `to` (waiting out a sweep already under way), then reads the outbox. */
 export async function deliveredTo(to: string) {

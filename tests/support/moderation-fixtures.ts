@@ -1,5 +1,5 @@
-import * as builds from '../../src/lib/server/db/builds';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheets/service';
+import * as builds from '../../src/lib/server/sheet/builds';
+import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
 import { FIXTURE_SETUP, fixtureRun } from './sheet-fixtures';
 
 /** A published build with one setup and one run, owned by `ownerId`. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { linksIn } from '../../src/lib/server/outbox';
+import { linksIn } from '../../src/lib/server/mail/outbox';
 
 describe('outbox links', () => {
 	it('finds each link in a mail once', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { reasonSentence, takenDownMessage } from '../../src/lib/moderation/taken-down';
+import { reasonSentence, takenDownMessage } from '../../src/lib/review/taken-down';
 
 describe('the desk’s public reason as a sentence', () => {
 	it('ends in one full stop whether or not the moderator typed one', () => {

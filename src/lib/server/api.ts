@@ -1,8 +1,8 @@
 import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { ApiFailure } from './failure';
+import { ApiFailure } from '../failure';
 import { apiError } from './guard';
-import { PhotoError } from './sheets/photos';
+import { PhotoError } from './sheet/photos';
 
 export { ApiFailure };
 

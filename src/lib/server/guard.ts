@@ -1,5 +1,5 @@
 import { error, json, redirect, type RequestEvent } from '@sveltejs/kit';
-import { suspensionMessage } from '../moderation/suspension';
+import { suspensionMessage } from '../review/suspension';
 import { roleAllows, type Role } from '../roles';
 import type { CurrentUser } from './auth/current-user';
 

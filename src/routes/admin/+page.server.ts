@@ -8,10 +8,10 @@ import {
 	USER_SORTS,
 	type UserSort
 } from '$lib/server/admin/users';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireRole } from '$lib/server/guard';
-import { liftSuspension, suspendUser } from '$lib/server/moderation/desk';
-import { parseForm } from '$lib/server/plain-form';
+import { liftSuspension, suspendUser } from '$lib/server/review/desk';
+import { parseForm } from '$lib/server/web/plain-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,10 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { transferRefSchema } from '$lib/schemas/shops';
-import { clock } from '$lib/server/clock';
-import * as builds from '$lib/server/db/builds';
+import { clock } from '$lib/clock';
+import * as builds from '$lib/server/sheet/builds';
 import { requireUser } from '$lib/server/guard';
-import { parseForm } from '$lib/server/plain-form';
-import { unitsFor } from '$lib/server/sheets/units';
+import { parseForm } from '$lib/server/web/plain-form';
+import { unitsFor } from '$lib/server/sheet/units';
 import { acceptHandover, handoversFor } from '$lib/server/shops/transfers';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -1,5 +1,5 @@
-import { listBuilds } from '$lib/server/db/build-list';
-import { currencyFor, unitsFor } from '$lib/server/sheets/units';
+import { listBuilds } from '$lib/server/search/build-list';
+import { currencyFor, unitsFor } from '$lib/server/sheet/units';
 import { engineFamilies } from '$lib/server/stats/families';
 import { buildListSchema } from '$lib/schemas/build-list';
 import type { PageServerLoad } from './$types';

@@ -1,4 +1,4 @@
-import { unitsFor } from '$lib/server/sheets/units';
+import { unitsFor } from '$lib/server/sheet/units';
 import { pairsFor, summarise } from '$lib/server/stats/change-effects';
 import type { ChangeKind } from '$lib/sheet/change-kinds';
 import { changeEffectsQuerySchema, paramsObject } from '$lib/stats/schema';

@@ -2,9 +2,9 @@ import { fail, redirect } from '@sveltejs/kit';
 import { endAllSessions } from '$lib/server/auth/sessions';
 import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import * as users from '$lib/server/db/users';
+import * as users from '$lib/server/auth/users';
 import { requireUser } from '$lib/server/guard';
-import { changePassword } from '$lib/server/accounts';
+import { changePassword } from '$lib/server/accounts/flows';
 import { changePasswordSchema, profileSchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';
 

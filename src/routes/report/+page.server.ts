@@ -1,13 +1,13 @@
 import { error, fail } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import { ITEM_LABEL, ITEM_TYPES, type ItemType } from '$lib/moderation/kinds';
-import { reportSchema } from '$lib/schemas/moderation';
+import { ITEM_LABEL, ITEM_TYPES, type ItemType } from '$lib/review/kinds';
+import { reportSchema } from '$lib/schemas/review';
 import { reportsByAccount, reportsByAddress, spend, waitText } from '$lib/server/auth/limits';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
-import { requireItem } from '$lib/server/moderation/items';
-import { fileReport } from '$lib/server/moderation/reports';
+import { requireItem } from '$lib/server/review/items';
+import { fileReport } from '$lib/server/review/reports';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Only same-site paths, so the form's "back" link can never lead off Squishline. */

@@ -1,15 +1,15 @@
 import { fail } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import { deskNoteSchema } from '$lib/schemas/desk';
-import { deskActionSchema } from '$lib/schemas/moderation';
-import { clock } from '$lib/server/clock';
-import * as deskNotes from '$lib/server/db/desk-notes';
+import { deskNoteSchema } from '$lib/schemas/review-notes';
+import { deskActionSchema } from '$lib/schemas/review';
+import { clock } from '$lib/clock';
+import * as deskNotes from '$lib/server/review/notes';
 import { requireRole } from '$lib/server/guard';
-import { decide, MAILED, NEEDS_REASON } from '$lib/server/moderation/desk';
-import { deskCount, deskCursor, deskQueue } from '$lib/server/moderation/queue';
-import { parseForm } from '$lib/server/plain-form';
-import { LOG_LABEL } from '$lib/moderation/kinds';
+import { decide, MAILED, NEEDS_REASON } from '$lib/server/review/desk';
+import { deskCount, deskCursor, deskQueue } from '$lib/server/review/queue';
+import { parseForm } from '$lib/server/web/plain-form';
+import { LOG_LABEL } from '$lib/review/kinds';
 import type { Actions, PageServerLoad } from './$types';
 
 const PAGE = 40;

@@ -10,11 +10,11 @@ import {
 	transferSchema
 } from '$lib/schemas/shops';
 import type { CurrentUser } from '$lib/server/auth/current-user';
-import { clock } from '$lib/server/clock';
-import * as builds from '$lib/server/db/builds';
+import { clock } from '$lib/clock';
+import * as builds from '$lib/server/sheet/builds';
 import { requireUser } from '$lib/server/guard';
-import { parseForm } from '$lib/server/plain-form';
-import { PhotoError } from '$lib/server/sheets/photos';
+import { parseForm } from '$lib/server/web/plain-form';
+import { PhotoError } from '$lib/server/sheet/photos';
 import { linksOfShop, requestLink } from '$lib/server/shops/links';
 import { removeLogo, setLogo } from '$lib/server/shops/logo';
 import { messagesOf, replyToMessage } from '$lib/server/shops/messages';

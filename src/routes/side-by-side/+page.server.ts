@@ -1,4 +1,4 @@
-import { unitsFor } from '$lib/server/sheets/units';
+import { unitsFor } from '$lib/server/sheet/units';
 import { loadColumns } from '$lib/server/stats/side-by-side';
 import { sideBySide } from '$lib/sheet/side-by-side';
 import { parseIds, SIDE_BY_SIDE_MAX, sideBySideQuerySchema } from '$lib/stats/pick';

@@ -1,7 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import { signUp } from '$lib/server/accounts';
+import { signUp } from '$lib/server/accounts/flows';
 import { mailRequests, take } from '$lib/server/auth/limits';
 import { signUpSchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';

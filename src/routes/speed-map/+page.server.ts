@@ -1,4 +1,4 @@
-import { unitsFor } from '$lib/server/sheets/units';
+import { unitsFor } from '$lib/server/sheet/units';
 import { engineFamilies } from '$lib/server/stats/families';
 import { speedMap } from '$lib/server/stats/speed-map';
 import { paramsObject, speedMapQuerySchema } from '$lib/stats/schema';

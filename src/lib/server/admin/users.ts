@@ -1,13 +1,13 @@
 import { error } from '@sveltejs/kit';
 import { Op, type Order, type WhereOptions } from 'sequelize';
-import { activeSuspension } from '../../moderation/suspension';
+import { activeSuspension } from '../../review/suspension';
 import { ROLES, type Role } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
 import { endAllSessions } from '../auth/sessions';
 import { db } from '../db/connection';
 import { models, type User } from '../db/models';
-import * as users from '../db/users';
-import * as log from '../moderation/log';
+import * as users from '../auth/users';
+import * as log from '../review/log';
 
 export const USER_SORTS = ['newest', 'oldest', 'name', 'email'] as const;
 export type UserSort = (typeof USER_SORTS)[number];

@@ -1,6 +1,6 @@
-import { activeSuspension, type Suspension } from '../../moderation/suspension';
+import { activeSuspension, type Suspension } from '../../review/suspension';
 import type { Role } from '../../roles';
-import * as users from '../db/users';
+import * as users from './users';
 
 export type CurrentUser = {
 	id: string;

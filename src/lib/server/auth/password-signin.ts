@@ -1,4 +1,4 @@
-import * as users from '../db/users';
+import * as users from './users';
 import { passwordAttemptsByAddress, passwordFailures, isBlocked, take } from './limits';
 import { checkPassword, hashPassword } from './password';
 

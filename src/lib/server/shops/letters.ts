@@ -1,6 +1,6 @@
 // Mails for the shop steps; each has a plain-text part (compose in mail.ts).
 import { env } from '../env';
-import { compose, type Letter } from '../mail';
+import { compose, type Letter } from '../mail/send';
 
 const link = (path: string) => new URL(path, env().ORIGIN).toString();
 

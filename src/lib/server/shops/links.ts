@@ -1,10 +1,10 @@
 import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { models, type Shop, type ShopLink } from '../db/models';
-import * as builds from '../db/builds';
-import * as users from '../db/users';
-import { send } from '../mail';
-import * as log from '../moderation/log';
+import * as builds from '../sheet/builds';
+import * as users from '../auth/users';
+import { send } from '../mail/send';
+import * as log from '../review/log';
 import { linkRequest } from './letters';
 import { checkToken, makeToken, type Checked } from './tokens';
 

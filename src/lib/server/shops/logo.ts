@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Shop } from '../db/models';
-import { checkImage, PhotoError, STORAGE_DOWN, withImage } from '../sheets/photos';
-import { deleteLater, deleteObjects, putObject, StorageDown } from '../storage';
+import { checkImage, PhotoError, STORAGE_DOWN, withImage } from '../sheet/photos';
+import { deleteLater, deleteObjects, putObject, StorageDown } from '../storage/objects';
 
 /**
  * A shop's logo under the same rules as build photos (15 MB, JPEG, PNG, WebP or HEIC read from

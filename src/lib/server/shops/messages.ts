@@ -2,8 +2,8 @@ import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { messagesByAccount, messagesByAddress, spend, waitText } from '../auth/limits';
 import { models, type Shop } from '../db/models';
-import * as users from '../db/users';
-import { send } from '../mail';
+import * as users from '../auth/users';
+import { send } from '../mail/send';
 import { shopMessage, shopReply } from './letters';
 
 export class MessageLimited extends Error {}

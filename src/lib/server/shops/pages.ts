@@ -5,8 +5,8 @@ import type { shopSchema } from '../../schemas/shops';
 import type { CurrentUser } from '../auth/current-user';
 import type { LinkedBuild } from '../../shops/summary';
 import { models, type Shop } from '../db/models';
-import * as log from '../moderation/log';
-import { deleteObjects } from '../storage';
+import * as log from '../review/log';
+import { deleteObjects } from '../storage/objects';
 
 export type ShopInput = z.output<typeof shopSchema>;
 

@@ -1,9 +1,9 @@
 import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { models, type Shop } from '../db/models';
-import { normaliseEmail } from '../db/users';
-import { send } from '../mail';
-import * as log from '../moderation/log';
+import { normaliseEmail } from '../auth/users';
+import { send } from '../mail/send';
+import * as log from '../review/log';
 import { staffInvite } from './letters';
 import { checkToken, makeToken, type TokenProblem } from './tokens';
 

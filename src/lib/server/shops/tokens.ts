@@ -1,5 +1,5 @@
 import type { TokenProblem } from '../../shops/problems';
-import { readToken, signToken } from '../signing';
+import { readToken, signToken } from '../mail/signed-links';
 
 export type { TokenProblem };
 

@@ -2,11 +2,11 @@ import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { db } from '../db/connection';
 import { models, type BuildTransfer, type Shop } from '../db/models';
-import * as builds from '../db/builds';
-import { normaliseEmail } from '../db/users';
-import { send } from '../mail';
-import * as log from '../moderation/log';
-import { refreshListing } from '../sheets/recompute';
+import * as builds from '../sheet/builds';
+import { normaliseEmail } from '../auth/users';
+import { send } from '../mail/send';
+import * as log from '../review/log';
+import { refreshListing } from '../derived/recompute';
 import { transferOffer } from './letters';
 import { checkToken, makeToken, type TokenProblem } from './tokens';
 

@@ -2,7 +2,7 @@ import { QueryTypes } from 'sequelize';
 import { CHANGE_KINDS, changeKind, judgeStep, type ChangeKind } from '../../sheet/change-kinds';
 import { db } from '../db/connection';
 import { models } from '../db/models';
-import { stepRun } from '../sheets/recompute';
+import { stepRun } from '../derived/recompute';
 
 // What each kind of change did across the published sheets. Pairs are judged when a sheet is saved
 // (src/lib/sheet/change-kinds.ts; stored as setups.change_kind and setups.effect_kmh), so these are

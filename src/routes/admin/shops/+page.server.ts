@@ -1,10 +1,10 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { shopRefSchema } from '$lib/schemas/shops';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireRole } from '$lib/server/guard';
 import { setVerified, shopsForCheck } from '$lib/server/shops/pages';
-import { parseForm } from '$lib/server/plain-form';
+import { parseForm } from '$lib/server/web/plain-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { api, created, parse, readJson } from '$lib/server/api';
-import * as builds from '$lib/server/db/builds';
-import { listBuilds } from '$lib/server/db/build-list';
-import { currencyFor, unitsFor } from '$lib/server/sheets/units';
+import * as builds from '$lib/server/sheet/builds';
+import { listBuilds } from '$lib/server/search/build-list';
+import { currencyFor, unitsFor } from '$lib/server/sheet/units';
 import { buildListSchema } from '$lib/schemas/build-list';
 import { requireUser } from '$lib/server/guard';
-import { sheetBody } from '$lib/server/sheets/api-bodies';
+import { sheetBody } from '$lib/server/sheet/api-bodies';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 

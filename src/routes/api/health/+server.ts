@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { roleAllows } from '$lib/roles';
-import { checkHealth } from '$lib/server/health';
-import { pendingCount } from '$lib/server/mail-queue';
+import { checkHealth } from '$lib/server/web/health';
+import { pendingCount } from '$lib/server/mail/queue';
 import type { RequestHandler } from './$types';
 
 // Public on purpose: load balancers and the start script poll it. The public answer is a bare

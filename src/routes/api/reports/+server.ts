@@ -1,9 +1,9 @@
-import { reportSchema } from '$lib/schemas/moderation';
+import { reportSchema } from '$lib/schemas/review';
 import { api, ApiFailure, created, parse, readJson } from '$lib/server/api';
 import { reportsByAccount, reportsByAddress, spend, waitText } from '$lib/server/auth/limits';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
-import { fileReport } from '$lib/server/moderation/reports';
+import { fileReport } from '$lib/server/review/reports';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = api(async (event) => {

@@ -5,27 +5,27 @@ import {
 	commentRefSchema,
 	commentSchema,
 	itemRefSchema
-} from '$lib/schemas/moderation';
-import { clock } from '$lib/server/clock';
+} from '$lib/schemas/review';
+import { clock } from '$lib/clock';
 import {
 	createComment,
 	deleteComment,
 	editComment,
 	listComments,
 	RateLimited
-} from '$lib/server/comments';
+} from '$lib/server/comments/comments';
 import { env } from '$lib/server/env';
 import { requireUser } from '$lib/server/guard';
-import { askSecondLook } from '$lib/server/moderation/desk';
-import { pageStanding } from '$lib/server/moderation/standing';
-import { parseForm } from '$lib/server/plain-form';
+import { askSecondLook } from '$lib/server/review/desk';
+import { pageStanding } from '$lib/server/review/standing';
+import { parseForm } from '$lib/server/web/plain-form';
 import { decideLink, pendingLinks, shownLinks, unlink } from '$lib/server/shops/links';
 import { shopOf } from '$lib/server/shops/pages';
 import { linkRefSchema } from '$lib/schemas/shops';
 import { z } from 'zod';
-import { idParam, readBuild } from '$lib/server/sheets/access';
-import { unitsFor } from '$lib/server/sheets/units';
-import { buildView } from '$lib/server/sheets/view';
+import { idParam, readBuild } from '$lib/server/sheet/access';
+import { unitsFor } from '$lib/server/sheet/units';
+import { buildView } from '$lib/server/sheet/view';
 import { stepsOf } from '$lib/server/stats/change-effects';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 

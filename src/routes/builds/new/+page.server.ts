@@ -1,10 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { ApiFailure } from '$lib/server/api';
-import * as builds from '$lib/server/db/builds';
-import { importBuild } from '$lib/server/sheets/export';
+import * as builds from '$lib/server/sheet/builds';
+import { importBuild } from '$lib/server/sheet/export';
 import { requireUser } from '$lib/server/guard';
-import { readSheetForm, sheetForm } from '$lib/server/sheets/forms';
-import { unitsFor } from '$lib/server/sheets/units';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { unitsFor } from '$lib/server/sheet/units';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
 import type { Actions, PageServerLoad } from './$types';
 

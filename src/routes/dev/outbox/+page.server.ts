@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { listMail, outboxDir } from '$lib/server/outbox';
+import { listMail, outboxDir } from '$lib/server/mail/outbox';
 import type { PageServerLoad } from './$types';
 
 // Local development only: exists only while the fake mail server is configured.

@@ -1,5 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
 import { acceptHandover, inspectHandover } from '$lib/server/shops/transfers';
 import type { Actions, PageServerLoad } from './$types';

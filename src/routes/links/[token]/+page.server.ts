@@ -1,5 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { decideLink, inspectLinkToken } from '$lib/server/shops/links';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -1,11 +1,11 @@
 import { fail, isHttpError, redirect } from '@sveltejs/kit';
 import { accountDeleteSchema } from '$lib/schemas/shops';
-import { deleteAccount } from '$lib/server/account-deletion';
-import { clock } from '$lib/server/clock';
-import * as builds from '$lib/server/db/builds';
+import { deleteAccount } from '$lib/server/accounts/deletion';
+import { clock } from '$lib/clock';
+import * as builds from '$lib/server/sheet/builds';
 import { models } from '$lib/server/db/models';
 import { requireUser } from '$lib/server/guard';
-import { parseForm } from '$lib/server/plain-form';
+import { parseForm } from '$lib/server/web/plain-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

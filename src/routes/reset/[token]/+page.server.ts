@@ -1,7 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import { resetPassword } from '$lib/server/accounts';
+import { resetPassword } from '$lib/server/accounts/flows';
 import * as tokens from '$lib/server/auth/email-tokens';
 import { newPasswordSchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';

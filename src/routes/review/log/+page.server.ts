@@ -1,6 +1,6 @@
-import { ITEM_TYPES } from '$lib/moderation/kinds';
+import { ITEM_TYPES } from '$lib/review/kinds';
 import { requireRole } from '$lib/server/guard';
-import * as log from '$lib/server/moderation/log';
+import * as log from '$lib/server/review/log';
 import type { PageServerLoad } from './$types';
 
 const PAGE = 100;

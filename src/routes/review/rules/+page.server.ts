@@ -1,4 +1,4 @@
-import { FLAGGED_WARNINGS, TEXT_RULES } from '$lib/moderation/rules';
+import { FLAGGED_WARNINGS, TEXT_RULES } from '$lib/review/rules';
 import { requireRole } from '$lib/server/guard';
 import type { PageServerLoad } from './$types';
 

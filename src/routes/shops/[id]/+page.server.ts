@@ -1,8 +1,8 @@
 import { error, fail } from '@sveltejs/kit';
 import { messageSchema } from '$lib/schemas/shops';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
-import { parseForm } from '$lib/server/plain-form';
+import { parseForm } from '$lib/server/web/plain-form';
 import { MessageLimited, sendMessage } from '$lib/server/shops/messages';
 import { linkedBuilds, shopView, viewShop } from '$lib/server/shops/pages';
 import { summarise } from '$lib/shops/summary';

@@ -1,5 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { clock } from '$lib/server/clock';
+import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
 import { checkToken } from '$lib/server/shops/tokens';
 import { joinStaff } from '$lib/server/shops/staff';

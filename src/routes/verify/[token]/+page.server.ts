@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { confirmAddress } from '$lib/server/accounts';
+import { confirmAddress } from '$lib/server/accounts/flows';
 import * as tokens from '$lib/server/auth/email-tokens';
 import type { Actions, PageServerLoad } from './$types';
 

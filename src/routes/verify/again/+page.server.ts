@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import { resendConfirmation } from '$lib/server/accounts';
+import { resendConfirmation } from '$lib/server/accounts/flows';
 import { mailRequests, take } from '$lib/server/auth/limits';
 import { resetRequestSchema as addressSchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';

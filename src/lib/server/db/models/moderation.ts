@@ -11,7 +11,7 @@ import {
 	REPORT_REASONS,
 	type ItemType,
 	type ReportReason
-} from '../../../moderation/kinds';
+} from '../../../review/kinds';
 
 const itemType = { type: DataTypes.ENUM(...ITEM_TYPES), allowNull: false };
 const status = {

@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
-import * as builds from '$lib/server/db/builds';
-import { editBuild, idParam, readBuild, seesTakenDown } from '$lib/server/sheets/access';
-import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
-import { exportBuild } from '$lib/server/sheets/export';
-import { refreshListing } from '$lib/server/sheets/recompute';
-import { destroyBuild } from '$lib/server/sheets/remove';
+import * as builds from '$lib/server/sheet/builds';
+import { editBuild, idParam, readBuild, seesTakenDown } from '$lib/server/sheet/access';
+import { sheetBody, versionOf } from '$lib/server/sheet/api-bodies';
+import { exportBuild } from '$lib/server/sheet/export';
+import { refreshListing } from '$lib/server/derived/recompute';
+import { destroyBuild } from '$lib/server/sheet/remove';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 

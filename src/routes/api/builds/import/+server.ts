@@ -1,6 +1,6 @@
 import { api, created, readJson } from '$lib/server/api';
 import { requireUser } from '$lib/server/guard';
-import { importBuild } from '$lib/server/sheets/export';
+import { importBuild } from '$lib/server/sheet/export';
 import type { RequestHandler } from './$types';
 
 export const POST: RequestHandler = api(async (event) => {

@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { commentEditSchema } from '$lib/schemas/moderation';
+import { commentEditSchema } from '$lib/schemas/review';
 import { api, parse, readJson } from '$lib/server/api';
-import { clock } from '$lib/server/clock';
-import { deleteComment, editComment, ownComment } from '$lib/server/comments';
+import { clock } from '$lib/clock';
+import { deleteComment, editComment, ownComment } from '$lib/server/comments/comments';
 import { requireUser } from '$lib/server/guard';
 import type { RequestHandler } from './$types';
 

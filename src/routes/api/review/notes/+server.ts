@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
-import * as deskNotes from '$lib/server/db/desk-notes';
+import * as deskNotes from '$lib/server/review/notes';
 import { apiError, requireRole } from '$lib/server/guard';
-import { deskNoteSchema } from '$lib/schemas/desk';
+import { deskNoteSchema } from '$lib/schemas/review-notes';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {

@@ -1,13 +1,13 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import * as builds from '$lib/server/db/builds';
-import { ApiFailure } from '$lib/server/failure';
-import * as parts from '$lib/server/db/parts';
-import * as runs from '$lib/server/db/runs';
-import * as setups from '$lib/server/db/setups';
-import { editBuild, idParam } from '$lib/server/sheets/access';
-import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
+import * as builds from '$lib/server/sheet/builds';
+import { ApiFailure } from '$lib/failure';
+import * as parts from '$lib/server/sheet/parts';
+import * as runs from '$lib/server/sheet/runs';
+import * as setups from '$lib/server/sheet/setups';
+import { editBuild, idParam } from '$lib/server/sheet/access';
+import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheet/forms';
 import {
 	addPhoto,
 	listPhotos,
@@ -15,11 +15,11 @@ import {
 	removePhoto,
 	reorderPhotos,
 	updatePhoto
-} from '$lib/server/sheets/photos';
-import { refreshListing } from '$lib/server/sheets/recompute';
-import { destroyBuild } from '$lib/server/sheets/remove';
-import { addPart, publishProblems, removePart, setPublication } from '$lib/server/sheets/service';
-import { unitsFor } from '$lib/server/sheets/units';
+} from '$lib/server/sheet/photos';
+import { refreshListing } from '$lib/server/derived/recompute';
+import { destroyBuild } from '$lib/server/sheet/remove';
+import { addPart, publishProblems, removePart, setPublication } from '$lib/server/sheet/service';
+import { unitsFor } from '$lib/server/sheet/units';
 import { BUILD_FIELDS, PART_FIELDS } from '$lib/sheet/fields';
 import { schemaFor } from '$lib/sheet/schema';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { linksIn, outboxDir, readMail } from '$lib/server/outbox';
+import { linksIn, outboxDir, readMail } from '$lib/server/mail/outbox';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params }) => {

@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { viewShop } from '$lib/server/shops/pages';
-import { getObjectForReader } from '$lib/server/storage';
+import { getObjectForReader } from '$lib/server/storage/objects';
 import type { RequestHandler } from './$types';
 
 // Served through the app so a page the desk took down takes its logo with it.

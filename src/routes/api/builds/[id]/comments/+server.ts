@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
-import { commentSchema } from '$lib/schemas/moderation';
+import { commentSchema } from '$lib/schemas/review';
 import { api, ApiFailure, created, parse, readJson } from '$lib/server/api';
-import { clock } from '$lib/server/clock';
-import { createComment, listComments, RateLimited } from '$lib/server/comments';
+import { clock } from '$lib/clock';
+import { createComment, listComments, RateLimited } from '$lib/server/comments/comments';
 import { requireUser } from '$lib/server/guard';
-import { idParam, readBuild } from '$lib/server/sheets/access';
+import { idParam, readBuild } from '$lib/server/sheet/access';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = api(async (event) => {

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { api } from '$lib/server/api';
-import { idParam, readBuild, seesTakenDown } from '$lib/server/sheets/access';
-import { exportBuild } from '$lib/server/sheets/export';
+import { idParam, readBuild, seesTakenDown } from '$lib/server/sheet/access';
+import { exportBuild } from '$lib/server/sheet/export';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = api(async (event) => {

@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { api, created, readJson } from '$lib/server/api';
-import * as parts from '$lib/server/db/parts';
-import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
-import { partBody } from '$lib/server/sheets/api-bodies';
-import { addPart } from '$lib/server/sheets/service';
+import * as parts from '$lib/server/sheet/parts';
+import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
+import { partBody } from '$lib/server/sheet/api-bodies';
+import { addPart } from '$lib/server/sheet/service';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = api(async (event) => {

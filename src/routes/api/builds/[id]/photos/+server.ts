@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { api, ApiFailure, created } from '$lib/server/api';
-import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
-import { addPhoto, listPhotos, PHOTO_MAX_BYTES } from '$lib/server/sheets/photos';
+import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
+import { addPhoto, listPhotos, PHOTO_MAX_BYTES } from '$lib/server/sheet/photos';
 import type { RequestHandler } from './$types';
 
 const view = (p: Awaited<ReturnType<typeof listPhotos>>[number]) => ({

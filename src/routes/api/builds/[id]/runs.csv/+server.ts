@@ -1,7 +1,7 @@
 import { api } from '$lib/server/api';
-import * as runs from '$lib/server/db/runs';
-import * as setups from '$lib/server/db/setups';
-import { idParam, readBuild, seesTakenDown } from '$lib/server/sheets/access';
+import * as runs from '$lib/server/sheet/runs';
+import * as setups from '$lib/server/sheet/setups';
+import { idParam, readBuild, seesTakenDown } from '$lib/server/sheet/access';
 import type { RequestHandler } from './$types';
 
 const cell = (v: unknown) => {

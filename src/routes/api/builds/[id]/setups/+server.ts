@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { api, created, readJson } from '$lib/server/api';
-import * as setups from '$lib/server/db/setups';
-import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
-import { sheetBody } from '$lib/server/sheets/api-bodies';
-import { saveSetup } from '$lib/server/sheets/service';
+import * as setups from '$lib/server/sheet/setups';
+import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
+import { sheetBody } from '$lib/server/sheet/api-bodies';
+import { saveSetup } from '$lib/server/sheet/service';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
 import type { RequestHandler } from './$types';
 

@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
-import { readBuild } from '$lib/server/sheets/access';
-import { readPhoto } from '$lib/server/sheets/photos';
-import { getObjectForReader } from '$lib/server/storage';
+import { readBuild } from '$lib/server/sheet/access';
+import { readPhoto } from '$lib/server/sheet/photos';
+import { getObjectForReader } from '$lib/server/storage/objects';
 import type { RequestHandler } from './$types';
 
 // Photos are served through the app, so a draft's photos follow the draft's access rule: others get 404.

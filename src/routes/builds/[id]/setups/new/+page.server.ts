@@ -1,8 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { editBuild, idParam } from '$lib/server/sheets/access';
-import { readSheetForm, sheetForm } from '$lib/server/sheets/forms';
-import { newSetupValues, saveSetup } from '$lib/server/sheets/service';
-import { unitsFor } from '$lib/server/sheets/units';
+import { editBuild, idParam } from '$lib/server/sheet/access';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { newSetupValues, saveSetup } from '$lib/server/sheet/service';
+import { unitsFor } from '$lib/server/sheet/units';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
 import type { Actions, PageServerLoad } from './$types';
 

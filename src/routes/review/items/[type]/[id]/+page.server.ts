@@ -1,13 +1,13 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { ITEM_TYPES, type ItemType } from '$lib/moderation/kinds';
-import { putBackSchema } from '$lib/schemas/moderation';
-import { clock } from '$lib/server/clock';
+import { ITEM_TYPES, type ItemType } from '$lib/review/kinds';
+import { putBackSchema } from '$lib/schemas/review';
+import { clock } from '$lib/clock';
 import { requireRole } from '$lib/server/guard';
-import { readCase } from '$lib/server/moderation/cases';
-import { putBack } from '$lib/server/moderation/desk';
-import { requireItem, type ItemRef } from '$lib/server/moderation/items';
-import * as log from '$lib/server/moderation/log';
-import { parseForm } from '$lib/server/plain-form';
+import { readCase } from '$lib/server/review/cases';
+import { putBack } from '$lib/server/review/desk';
+import { requireItem, type ItemRef } from '$lib/server/review/items';
+import * as log from '$lib/server/review/log';
+import { parseForm } from '$lib/server/web/plain-form';
 import type { Actions, PageServerLoad } from './$types';
 
 // One item's page on the desk: what it is, whether it is down and why, everything the desk did

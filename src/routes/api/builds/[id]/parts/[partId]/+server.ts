@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { api, noContent, readJson } from '$lib/server/api';
-import { ApiFailure } from '$lib/server/failure';
-import { editBuild, idParam } from '$lib/server/sheets/access';
-import { partBody } from '$lib/server/sheets/api-bodies';
-import { removePart, updatePart } from '$lib/server/sheets/service';
+import { ApiFailure } from '$lib/failure';
+import { editBuild, idParam } from '$lib/server/sheet/access';
+import { partBody } from '$lib/server/sheet/api-bodies';
+import { removePart, updatePart } from '$lib/server/sheet/service';
 import type { RequestHandler } from './$types';
 
 /** The whole part, as POST on the list takes it. */

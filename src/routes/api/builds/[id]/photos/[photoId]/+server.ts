@@ -1,8 +1,8 @@
 import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { api, noContent, parse, readJson } from '$lib/server/api';
-import { editBuild, idParam } from '$lib/server/sheets/access';
-import { removePhoto, updatePhoto } from '$lib/server/sheets/photos';
+import { editBuild, idParam } from '$lib/server/sheet/access';
+import { removePhoto, updatePhoto } from '$lib/server/sheet/photos';
 import type { RequestHandler } from './$types';
 
 const patch = z.object({

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { api, noContent, parse, readJson } from '$lib/server/api';
-import { editBuild, idParam } from '$lib/server/sheets/access';
-import { reorderPhotos } from '$lib/server/sheets/photos';
+import { editBuild, idParam } from '$lib/server/sheet/access';
+import { reorderPhotos } from '$lib/server/sheet/photos';
 import type { RequestHandler } from './$types';
 
 export const PUT: RequestHandler = api(async (event) => {

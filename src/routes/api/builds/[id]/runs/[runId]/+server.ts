@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
-import * as runs from '$lib/server/db/runs';
-import { editRun } from '$lib/server/sheets/access';
-import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
-import { recomputeBuild, recomputeSetup } from '$lib/server/sheets/recompute';
-import { runFromColumns, saveRun } from '$lib/server/sheets/service';
+import * as runs from '$lib/server/sheet/runs';
+import { editRun } from '$lib/server/sheet/access';
+import { sheetBody, versionOf } from '$lib/server/sheet/api-bodies';
+import { recomputeBuild, recomputeSetup } from '$lib/server/derived/recompute';
+import { runFromColumns, saveRun } from '$lib/server/sheet/service';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { RequestHandler } from './$types';
 

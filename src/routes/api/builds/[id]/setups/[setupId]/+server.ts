@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
-import * as setups from '$lib/server/db/setups';
-import { editSetup } from '$lib/server/sheets/access';
-import { sheetBody, versionOf } from '$lib/server/sheets/api-bodies';
-import { recomputeBuild } from '$lib/server/sheets/recompute';
-import { saveSetup } from '$lib/server/sheets/service';
+import * as setups from '$lib/server/sheet/setups';
+import { editSetup } from '$lib/server/sheet/access';
+import { sheetBody, versionOf } from '$lib/server/sheet/api-bodies';
+import { recomputeBuild } from '$lib/server/derived/recompute';
+import { saveSetup } from '$lib/server/sheet/service';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
 import type { RequestHandler } from './$types';
 

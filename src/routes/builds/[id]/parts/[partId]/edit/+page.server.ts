@@ -1,11 +1,11 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { message, setError } from 'sveltekit-superforms';
-import * as setups from '$lib/server/db/setups';
-import { ApiFailure } from '$lib/server/failure';
-import { editPart } from '$lib/server/sheets/access';
-import { readSheetForm, sheetForm } from '$lib/server/sheets/forms';
-import { partToStored, removePart, updatePart } from '$lib/server/sheets/service';
-import { unitsFor } from '$lib/server/sheets/units';
+import * as setups from '$lib/server/sheet/setups';
+import { ApiFailure } from '$lib/failure';
+import { editPart } from '$lib/server/sheet/access';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { partToStored, removePart, updatePart } from '$lib/server/sheet/service';
+import { unitsFor } from '$lib/server/sheet/units';
 import { PART_FIELDS } from '$lib/sheet/fields';
 import type { Actions, PageServerLoad } from './$types';
 

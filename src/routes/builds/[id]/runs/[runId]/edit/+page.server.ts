@@ -1,11 +1,11 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { message } from 'sveltekit-superforms';
-import * as runs from '$lib/server/db/runs';
-import { editRun } from '$lib/server/sheets/access';
-import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
-import { recomputeBuild, recomputeSetup } from '$lib/server/sheets/recompute';
-import { runFromColumns, saveRun } from '$lib/server/sheets/service';
-import { unitsFor } from '$lib/server/sheets/units';
+import * as runs from '$lib/server/sheet/runs';
+import { editRun } from '$lib/server/sheet/access';
+import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { recomputeBuild, recomputeSetup } from '$lib/server/derived/recompute';
+import { runFromColumns, saveRun } from '$lib/server/sheet/service';
+import { unitsFor } from '$lib/server/sheet/units';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { Actions, PageServerLoad } from './$types';
 

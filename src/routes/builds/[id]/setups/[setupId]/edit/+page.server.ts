@@ -1,11 +1,11 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { message } from 'sveltekit-superforms';
-import * as setups from '$lib/server/db/setups';
-import { recomputeBuild } from '$lib/server/sheets/recompute';
-import { editSetup } from '$lib/server/sheets/access';
-import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheets/forms';
-import { saveSetup } from '$lib/server/sheets/service';
-import { unitsFor } from '$lib/server/sheets/units';
+import * as setups from '$lib/server/sheet/setups';
+import { recomputeBuild } from '$lib/server/derived/recompute';
+import { editSetup } from '$lib/server/sheet/access';
+import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { saveSetup } from '$lib/server/sheet/service';
+import { unitsFor } from '$lib/server/sheet/units';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
 import type { Actions, PageServerLoad } from './$types';
 

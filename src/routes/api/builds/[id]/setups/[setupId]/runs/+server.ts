@@ -1,10 +1,10 @@
 import { error, json } from '@sveltejs/kit';
 import { api, created, readJson } from '$lib/server/api';
-import * as runs from '$lib/server/db/runs';
-import * as setups from '$lib/server/db/setups';
-import { editBuild, idParam, readBuild } from '$lib/server/sheets/access';
-import { sheetBody } from '$lib/server/sheets/api-bodies';
-import { saveRun } from '$lib/server/sheets/service';
+import * as runs from '$lib/server/sheet/runs';
+import * as setups from '$lib/server/sheet/setups';
+import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
+import { sheetBody } from '$lib/server/sheet/api-bodies';
+import { saveRun } from '$lib/server/sheet/service';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { RequestHandler } from './$types';
 

@@ -1,8 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { editSetup } from '$lib/server/sheets/access';
-import { readSheetForm, sheetForm } from '$lib/server/sheets/forms';
-import { saveRun } from '$lib/server/sheets/service';
-import { unitsFor } from '$lib/server/sheets/units';
+import { editSetup } from '$lib/server/sheet/access';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { saveRun } from '$lib/server/sheet/service';
+import { unitsFor } from '$lib/server/sheet/units';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -1,0 +1,204 @@
+import { QueryTypes } from 'sequelize';
+import type { BuildListQuery } from '../../schemas/build-list';
+import { EXHAUST_TYPES } from '../../sheet/fields';
+import { toCanonical, type Units } from '../../sheet/units';
+import { booleanQuery } from './words';
+import { correct } from './vocabulary';
+import { db } from '../db/connection';
+
+// The public builds list: filters on the build and on its representative setup (the one close builds
+// ranks, `setups.listed`, whose pipe, size and elevation are copied onto the build), keyset pages,
+// and search. A page is found in two steps whatever its size:
+// the ids in order (the filtering and sorting), then the details of just those rows. How the ids are
+// found depends on the filters (see pageIds). A search that finds nothing makes one more try with the
+// nearest spelling (see ../search/vocabulary.ts).
+
+export type ListRow = {
+	id: number;
+	title: string;
+	owner: string;
+	engineFamily: string;
+	bestSpeedKmh: number | null;
+	stockSpeedKmh: number | null;
+	partsTotalMinor: number;
+	currency: string;
+	setupCount: number;
+	runCount: number;
+	displacementCc: number | null;
+	exhaust: string | null;
+	elevationM: number | null;
+	photos: boolean;
+	/** The name of a shop an admin has verified that the owner agreed to show on it, if any. */
+	verifiedShop: string | null;
+};
+
+// Each order walks an index (id; best speed, id; currency, parts total, id), so a page reads about its own
+// rows. The id breaks ties in the key's direction. MariaDB sorts NULL speeds last when descending.
+const KEY = {
+	newest: { col: 'b.id', dir: 'DESC' },
+	fastest: { col: 'b.best_speed_kmh', dir: 'DESC' },
+	cheapest: { col: 'b.parts_total_minor', dir: 'ASC' }
+} as const;
+
+function where(q: BuildListQuery, units: Units, text: string | null) {
+	const w = ["b.publication = 'published'", "b.moderation = 'visible'"];
+	const r: Record<string, unknown> = {};
+	const add = (sql: string, name: string, v: unknown) => {
+		w.push(sql);
+		r[name] = v;
+	};
+	// A cost order compares like with like: one currency, and only builds with parts listed.
+	if (q.sort === 'cheapest') {
+		add('b.currency = :currency', 'currency', q.currency ?? 'EUR');
+		w.push('b.parts_total_minor > 0');
+	}
+	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
+	if (q.family) add('b.engine_family = :family', 'family', q.family);
+	if (q.exhaust) add('b.rep_pipe = :exhaust', 'exhaust', q.exhaust);
+	if (q.ccMin !== undefined) add('b.rep_cc >= :ccMin', 'ccMin', q.ccMin);
+	if (q.ccMax !== undefined) add('b.rep_cc <= :ccMax', 'ccMax', q.ccMax);
+	const speed = (v: number) => toCanonical(v, 'speed', units);
+	const elev = (v: number) => toCanonical(v, 'elevation', units);
+	if (q.speedMin !== undefined) add('b.best_speed_kmh >= :speedMin', 'speedMin', speed(q.speedMin));
+	if (q.speedMax !== undefined) add('b.best_speed_kmh <= :speedMax', 'speedMax', speed(q.speedMax));
+	if (q.elevMin !== undefined) add('b.rep_elevation_m >= :elevMin', 'elevMin', elev(q.elevMin));
+	if (q.elevMax !== undefined) add('b.rep_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
+	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
+	if (q.runs === '1') w.push('b.run_count > 0');
+	if (text)
+		add('MATCH(b.title, b.story, b.parts_text) AGAINST (:text IN BOOLEAN MODE)', 'text', text);
+	return { w, r };
+}
+
+const PIPES = ['', ...EXHAUST_TYPES.map((o) => o.value)];
+/** Tests turn `filterIndex` off to check that walking the order finds the same pages. */
+export const LIST_TUNING = { filterIndex: true };
+const ORDER_INDEX = {
+	newest: 'PRIMARY',
+	fastest: 'builds_best_speed',
+	cheapest: 'builds_currency_parts'
+};
+
+function cursorWhere(q: BuildListQuery) {
+	if (!q.cursor) return null;
+	const [k, id] = Buffer.from(q.cursor, 'base64url').toString().split(':');
+	const cid = Number(id);
+	if (!Number.isInteger(cid)) return null;
+	const { col, dir } = KEY[q.sort];
+	const cmp = dir === 'DESC' ? '<' : '>';
+	const after = `(${col} = :ck AND b.id ${cmp} :cid)`;
+	// A cursor on a build without a best speed ("null"): only more of those follow.
+	if (k === 'null') return { sql: `(${col} IS NULL AND b.id ${cmp} :cid)`, r: { cid } };
+	const ck = Number(k);
+	if (!Number.isFinite(ck)) return null;
+	const nullsAfter = q.sort === 'fastest' ? ` OR ${col} IS NULL` : '';
+	return { sql: `(${col} ${cmp} :ck OR ${after}${nullsAfter})`, r: { ck, cid } };
+}
+
+/**
+ * The page's ids in order, one of three ways:
+ * - words to search: the FULLTEXT index finds the matches, which are then filtered and sorted;
+ * - a pipe or displacement filter: range over builds_list (pipe as a list of points, so the
+ *   displacement range applies inside each), which carries every filtered and sorted column, then
+ *   sort the matches — index entries only, however many match;
+ * - otherwise walk the order's own index and stop after a page.
+ * (Walking the order with a narrow filter can pass most builds by — the fastest are rarely 50 cc —
+ * which is why a filter on the setup's columns starts from those columns instead.)
+ */
+async function pageIds(q: BuildListQuery, units: Units, text: string | null) {
+	const { w, r } = where(q, units, text);
+	const c = cursorWhere(q);
+	if (c) {
+		w.push(c.sql);
+		Object.assign(r, c.r);
+	}
+	const { col, dir } = KEY[q.sort];
+	let index = '';
+	if (
+		!text &&
+		LIST_TUNING.filterIndex &&
+		(q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined)
+	) {
+		index = 'FORCE INDEX (builds_list)';
+		if (!q.exhaust) {
+			w.push('b.rep_pipe IN (:pipes)');
+			r.pipes = PIPES;
+		}
+	} else if (!text) index = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
+	return db().query<{ id: number; sort_key: number | null }>(
+		`SELECT b.id, ${col} AS sort_key FROM builds b ${index} WHERE ${w.join(' AND ')}
+		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
+		{ replacements: { ...r, limit: q.limit + 1 }, type: QueryTypes.SELECT }
+	);
+}
+
+async function page(q: BuildListQuery, units: Units, text: string | null) {
+	const ids = await pageIds(q, units, text);
+	const more = ids.length > q.limit;
+	const mine = ids.slice(0, q.limit);
+	const last = mine.at(-1);
+	const rows = mine.length
+		? await db().query<Record<string, unknown>>(
+				`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
+				b.currency, b.setup_count, b.run_count, u.name AS owner,
+				b.rep_cc, b.rep_pipe, b.rep_elevation_m,
+				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos,
+				(SELECT sh.name FROM shop_links sl JOIN shops sh ON sh.id = sl.shop_id
+					WHERE sl.build_id = b.id AND sl.state = 'approved' AND sh.verified_at IS NOT NULL
+					AND sh.moderation = 'visible' ORDER BY sl.id LIMIT 1) AS verified_shop,
+				b.owner_id IS NULL AS owner_gone
+			FROM builds b
+			LEFT JOIN users u ON u.id = b.owner_id
+			WHERE b.id IN (:ids)`,
+				{ replacements: { ids: mine.map((x) => x.id) }, type: QueryTypes.SELECT }
+			)
+		: [];
+	const byId = new Map(rows.map((x) => [Number(x.id), toRow(x)]));
+	return {
+		builds: mine.map((x) => byId.get(Number(x.id))!).filter(Boolean),
+		next:
+			more && last
+				? Buffer.from(
+						`${last.sort_key === null ? 'null' : Number(last.sort_key)}:${last.id}`
+					).toString('base64url')
+				: null
+	};
+}
+
+const n = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+function toRow(x: Record<string, unknown>): ListRow {
+	return {
+		id: Number(x.id),
+		title: String(x.title),
+		owner: Number(x.owner_gone) ? 'a former member' : ((x.owner as string | null) ?? 'a member'),
+		engineFamily: String(x.engine_family ?? ''),
+		bestSpeedKmh: n(x.best_speed_kmh),
+		stockSpeedKmh: n(x.stock_speed_kmh),
+		partsTotalMinor: Number(x.parts_total_minor),
+		currency: String(x.currency),
+		setupCount: Number(x.setup_count),
+		runCount: Number(x.run_count),
+		displacementCc: n(x.rep_cc),
+		exhaust: (x.rep_pipe as string) || null,
+		elevationM: n(x.rep_elevation_m),
+		photos: Boolean(Number(x.photos)),
+		verifiedShop: (x.verified_shop as string | null) ?? null
+	};
+}
+
+/**
+ * A page of the list. With words to search for and nothing found on the first page, the nearest
+ * known spelling is tried once; `didYouMean` then says what was searched instead.
+ */
+export async function listBuilds(q: BuildListQuery, units: Units) {
+	const text = q.q ? booleanQuery(q.q) : null;
+	// Only short words or stopwords: list without searching, and say so.
+	if (q.q && !text) return { ...(await page(q, units, null)), didYouMean: null, ignored: true };
+	const first = await page(q, units, text);
+	if (!q.q || first.builds.length || q.cursor)
+		return { ...first, didYouMean: null, ignored: false };
+	const fixed = await correct(q.q);
+	const fixedText = fixed ? booleanQuery(fixed) : null;
+	if (!fixed || !fixedText) return { ...first, didYouMean: null, ignored: false };
+	return { ...(await page(q, units, fixedText)), didYouMean: fixed, ignored: false };
+}

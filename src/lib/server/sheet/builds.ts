@@ -1,0 +1,54 @@
+import { models, type Build } from '../db/models';
+
+export type BuildPatch = Partial<
+	Pick<
+		Build,
+		| 'title'
+		| 'story'
+		| 'chassis'
+		| 'engineFamily'
+		| 'engineCycle'
+		| 'cooling'
+		| 'cylinderOrientation'
+		| 'brakeFront'
+		| 'brakeRear'
+		| 'brakesUpgraded'
+		| 'currency'
+	>
+>;
+
+export async function read(id: number) {
+	return Number.isInteger(id) && id > 0 ? models().Build.findByPk(id) : null;
+}
+
+export async function create(ownerId: string, patch: BuildPatch & { title: string }) {
+	return models().Build.create({ ...patch, ownerId });
+}
+
+/** Saves only if nobody saved since `version`; false means someone did (a conflict). */
+export async function update(
+	id: number,
+	version: number,
+	patch: BuildPatch | Partial<Build>
+): Promise<boolean> {
+	const [n] = await models().Build.update(
+		{ ...patch, version: version + 1 },
+		{ where: { id, version } }
+	);
+	return n === 1;
+}
+
+export async function destroy(id: number) {
+	await models().Build.destroy({ where: { id } });
+}
+
+/** A member's own builds: drafts first, then the rest by last change. */
+export async function listBench(ownerId: string) {
+	return models().Build.findAll({
+		where: { ownerId },
+		order: [
+			['publication', 'ASC'],
+			['updatedAt', 'DESC']
+		]
+	});
+}

@@ -1,0 +1,115 @@
+import { deriveSetup, setupWarnings } from '../../sheet/derive';
+import { diffSetups } from '../../sheet/diff';
+import type { Units } from '../../sheet/units';
+import type { Build } from '../db/models';
+import * as parts from './parts';
+import * as runs from './runs';
+import * as setups from './setups';
+import * as users from '../auth/users';
+import { renderMarkdown } from '../text/markdown';
+import { listPhotos } from './photos';
+
+/** Everything the build page shows, as plain data: derived values come from the tuning module. */
+export async function buildView(b: Build, units: Units) {
+	const [setupRows, runRows, partRows, owner, photoRows] = await Promise.all([
+		setups.listForBuild(b.id),
+		runs.listForBuild(b.id),
+		parts.listForBuild(b.id),
+		b.ownerId ? users.read(b.ownerId) : null,
+		listPhotos(b.id)
+	]);
+	const stock = b.stockSpeedKmh;
+	let prev: Record<string, unknown> | null = null;
+	const setupViews = setupRows.map((s) => {
+		const config = s.config;
+		const d = deriveSetup(config);
+		const myRuns = runRows.filter((r) => r.setupId === s.id).map((r) => r.get({ plain: true }));
+		const best = myRuns.reduce<(typeof myRuns)[number] | null>(
+			(m, r) => (!m || r.speedKmh > m.speedKmh ? r : m),
+			null
+		);
+		const changes = prev ? diffSetups(prev, config, units) : [];
+		prev = config;
+		const retune = new URLSearchParams({ units: 'metric' });
+		if (typeof config.mainJet === 'number') retune.set('jet', String(config.mainJet));
+		if (typeof config.jetNumbering === 'string') retune.set('numbering', config.jetNumbering);
+		if (best) {
+			retune.set('fromElevation', String(best.elevationM));
+			retune.set('fromTemp', String(best.tempC));
+			retune.set('fromHumidity', String(best.humidityPct));
+			if (best.pressureKpa !== null) retune.set('fromPressure', String(best.pressureKpa * 10));
+			retune.set('fromPressureKind', best.pressureKind);
+		}
+		return {
+			id: s.id,
+			position: s.position,
+			moderation: s.moderation,
+			hiddenReason: s.hiddenReason,
+			changeNote: s.changeNote,
+			isStock: s.isStock,
+			version: s.version,
+			config,
+			derived: d,
+			seaLevelJet: s.seaLevelJet,
+			runs: myRuns,
+			best: best ? { speedKmh: best.speedKmh, method: best.method } : null,
+			changes,
+			warnings: setupWarnings(d, best, stock, b.brakesUpgraded),
+			retuneHref: `/slide-rule/retune?${retune}`
+		};
+	});
+	const bestSince = setupViews
+		.filter((s) => !s.isStock)
+		.reduce<number | null>(
+			(m, s) => (s.best && (m === null || s.best.speedKmh > m) ? s.best.speedKmh : m),
+			null
+		);
+	const gain = stock !== null && bestSince !== null ? bestSince - stock : null;
+	return {
+		build: {
+			id: b.id,
+			title: b.title,
+			ownerId: b.ownerId,
+			ownerName: owner?.name ?? (b.ownerId ? 'a member' : 'a former member'),
+			storyHtml: renderMarkdown(b.story),
+			chassis: b.chassis,
+			engineFamily: b.engineFamily,
+			engineCycle: b.engineCycle,
+			cooling: b.cooling,
+			cylinderOrientation: b.cylinderOrientation,
+			brakeFront: b.brakeFront,
+			brakeRear: b.brakeRear,
+			brakesUpgraded: b.brakesUpgraded,
+			currency: b.currency,
+			publication: b.publication,
+			moderation: b.moderation,
+			hiddenReason: b.hiddenReason,
+			bestSpeedKmh: b.bestSpeedKmh,
+			stockSpeedKmh: stock,
+			partsTotalMinor: b.partsTotalMinor,
+			version: b.version
+		},
+		setups: setupViews,
+		parts: partRows.map((p) => ({
+			id: p.id,
+			category: p.category,
+			name: p.name,
+			costMinor: p.costMinor,
+			link: p.link,
+			setupId: p.setupId
+		})),
+		photos: photoRows.map((p) => ({
+			id: p.id,
+			caption: p.caption,
+			setupId: p.setupId,
+			width: p.width,
+			height: p.height,
+			display: `/api/photos/${p.id}/display`,
+			thumb: `/api/photos/${p.id}/thumb`
+		})),
+		costPerKmhMinor: gain !== null && gain > 0 ? b.partsTotalMinor / gain : null,
+		gainKmh: gain
+	};
+}
+
+export type BuildView = Awaited<ReturnType<typeof buildView>>;
