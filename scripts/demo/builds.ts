@@ -3,7 +3,8 @@
 import { gearingLimitedSpeedKmh } from '../../src/lib/tuning';
 import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
-import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
 
 function mulberry32(seed: number) {
 	return () => {

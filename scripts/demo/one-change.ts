@@ -5,7 +5,8 @@
 // page has excluded pairs to explain. Fixed seed, like the other demo sheets.
 import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
-import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { gearingLimitOf, type Config } from './builds';
 
 type Step = {

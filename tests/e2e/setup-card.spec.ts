@@ -1,6 +1,7 @@
 import { expect, test } from '@playwright/test';
 import * as builds from '../../src/lib/server/sheet/builds';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 import { makeUser, signInWithPassword } from './support';
 

@@ -4,7 +4,8 @@ import { closeDb } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
 import { renderMarkdown } from '../../src/lib/server/text/markdown';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { buildView } from '../../src/lib/server/sheet/view';
 import { load as viewLoad } from '../../src/routes/builds/[id]/+page.server';
 import {
@@ -213,8 +214,8 @@ describe('derived columns', () => {
 		expect(run.airDensity).toBeCloseTo(t.airAt(air).densityKgM3, 9);
 		expect(s.bestRunKmh).toBe(50);
 		// The old version number is now stale.
-		expect(await saveSetup(b.id, SETUP, { id, version: before.version })).toEqual({
-			conflict: true
+		await expect(saveSetup(b.id, SETUP, { id, version: before.version })).rejects.toMatchObject({
+			status: 409
 		});
 	});
 });

@@ -4,7 +4,8 @@ import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/sheet/builds';
 import { BAND } from '../../src/lib/close/weights';
 import { closeBuilds, rankClose, targetFrom } from '../../src/lib/server/close/service';
-import { addPart, saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { makeUser } from '../support/factories';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 

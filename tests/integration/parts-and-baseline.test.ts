@@ -2,12 +2,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/sheet/builds';
 import * as parts from '../../src/lib/server/sheet/parts';
-import {
-	addPart,
-	publishProblems,
-	saveSetup,
-	updatePart
-} from '../../src/lib/server/sheet/service';
+import { addPart, saveSetup, updatePart } from '../../src/lib/server/sheet/service';
+import { publishProblems } from '../../src/lib/server/sheet/build-service';
 import { PUT as partPut } from '../../src/routes/api/builds/[id]/parts/[partId]/+server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
@@ -48,14 +44,12 @@ describe('editing a part', () => {
 		const { id: setupId } = (await saveSetup(b.id, FIXTURE_SETUP)) as { id: number };
 		await addPart(b.id, { category: 'exhaust', name: 'Pipe', cost: 100, setupId: null });
 		const [p] = await parts.listForBuild(b.id);
-		expect(
-			await updatePart(b.id, p.id, {
-				category: 'exhaust',
-				name: 'Pipe, ported',
-				cost: 120.5,
-				setupId
-			})
-		).toBe(true);
+		await updatePart(b.id, p.id, {
+			category: 'exhaust',
+			name: 'Pipe, ported',
+			cost: 120.5,
+			setupId
+		});
 		const again = (await parts.read(b.id, p.id))!;
 		expect([again.name, again.costMinor, again.setupId]).toEqual(['Pipe, ported', 12050, setupId]);
 		expect((await builds.read(b.id))!.partsTotalMinor).toBe(12050);
@@ -75,9 +69,9 @@ describe('editing a part', () => {
 		expect((await builds.read(b.id))!.partsTotalMinor).toBe(9000);
 		// Another build's part is not this build's to change.
 		const other = await sheet(u.id);
-		expect(
-			await updatePart(other.id, p.id, { category: 'exhaust', name: 'x1', cost: 1, setupId: null })
-		).toBe(false);
+		await expect(
+			updatePart(other.id, p.id, { category: 'exhaust', name: 'x1', cost: 1, setupId: null })
+		).rejects.toMatchObject({ status: 404 });
 		expect((await parts.read(b.id, p.id))!.name).toBe('Pipe');
 	});
 });

@@ -10,11 +10,10 @@ import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
 import * as setups from '../../src/lib/server/sheet/setups';
 import type { SetupConfig } from '../../src/lib/server/db/models/setup';
-import { ApiFailure } from '../../src/lib/failure';
+import { Failure } from '../../src/lib/failure';
 import {
 	addPhoto,
 	PHOTO_MAX_COUNT,
-	PhotoError,
 	STORAGE_DOWN,
 	updatePhoto,
 	withImage
@@ -41,9 +40,9 @@ const refusedField = async (p: Promise<unknown>) => {
 		() => null,
 		(x: unknown) => x
 	);
-	expect(e).toBeInstanceOf(ApiFailure);
-	expect((e as ApiFailure).status).toBe(422);
-	expect((e as ApiFailure).issues[0].path).toBe('setupId');
+	expect(e).toBeInstanceOf(Failure);
+	expect((e as Failure).status).toBe(422);
+	expect((e as Failure).issues[0].path).toBe('setupId');
 };
 
 describe('a part or photo names only a setup of its own build', () => {
@@ -112,10 +111,10 @@ describe('upload limits', () => {
 		const me = await makeUser();
 		const { b } = await draft(me.id);
 		const e = await addPhoto(b.id, pngClaiming(w, h)).catch((x: unknown) => x);
-		expect(e).toBeInstanceOf(PhotoError);
-		expect((e as PhotoError).status).toBe(413);
-		expect((e as PhotoError).message).toContain(`${w} × ${h} pixels`);
-		expect((e as PhotoError).message).not.toContain('not a JPEG');
+		expect(e).toBeInstanceOf(Failure);
+		expect((e as Failure).status).toBe(413);
+		expect((e as Failure).message).toContain(`${w} × ${h} pixels`);
+		expect((e as Failure).message).not.toContain('not a JPEG');
 	});
 
 	it('image work runs at most two at a time', async () => {
@@ -176,9 +175,9 @@ describe('the object store frozen', () => {
 		const t0 = Date.now();
 		const e = await addPhoto(b.id, await smallPng()).catch((x: unknown) => x);
 		expect(Date.now() - t0).toBeLessThan(10_000);
-		expect(e).toBeInstanceOf(PhotoError);
-		expect((e as PhotoError).status).toBe(503);
-		expect((e as PhotoError).message).toBe(STORAGE_DOWN);
+		expect(e).toBeInstanceOf(Failure);
+		expect((e as Failure).status).toBe(503);
+		expect((e as Failure).message).toBe(STORAGE_DOWN);
 		expect(await models().Photo.count({ where: { buildId: b.id } })).toBe(0);
 
 		// Reading a photo while frozen answers 503 with words, in seconds.

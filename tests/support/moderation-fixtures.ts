@@ -1,5 +1,6 @@
 import * as builds from '../../src/lib/server/sheet/builds';
-import { saveRun, saveSetup, setPublication } from '../../src/lib/server/sheet/service';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { FIXTURE_SETUP, fixtureRun } from './sheet-fixtures';
 
 /** A published build with one setup and one run, owned by `ownerId`. */

@@ -1,3 +1,4 @@
+import { Failure } from '$lib/failure';
 import { error, fail, isHttpError, redirect } from '@sveltejs/kit';
 import { roleAllows } from '$lib/roles';
 import {
@@ -14,7 +15,7 @@ import { clock } from '$lib/clock';
 import * as builds from '$lib/server/sheet/builds';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
-import { PhotoError } from '$lib/server/sheet/photos';
+import {} from '$lib/server/sheet/photos';
 import { linksOfShop, requestLink } from '$lib/server/shops/links';
 import { removeLogo, setLogo } from '$lib/server/shops/logo';
 import { messagesOf, replyToMessage } from '$lib/server/shops/messages';
@@ -99,7 +100,7 @@ export const actions: Actions = {
 		try {
 			await setLogo(shop, new Uint8Array(await file.arrayBuffer()));
 		} catch (e) {
-			if (e instanceof PhotoError) return fail(e.status, { logo: { message: e.message } });
+			if (e instanceof Failure) return fail(e.status, { logo: { message: e.message } });
 			throw e;
 		}
 		done('page');

@@ -2,9 +2,10 @@ import { error } from '@sveltejs/kit';
 import { models } from '../db/models';
 import type { CurrentUser } from '../auth/current-user';
 import * as log from '../review/log';
-import { destroyBuild } from '../sheet/remove';
+import { destroyBuild } from '../sheet/build-service';
 import { refreshListing } from '../derived/recompute';
 import { destroyShop } from '../shops/pages';
+import { inTransaction } from '../db/transaction';
 
 export type DeleteMode = 'delete-builds' | 'keep-anonymised';
 
@@ -16,28 +17,30 @@ export type DeleteMode = 'delete-builds' | 'keep-anonymised';
  * lines, which then name "a removed account".
  */
 export async function deleteAccount(me: CurrentUser, mode: DeleteMode, now: Date): Promise<void> {
-	const { Build, Shop, ReviewCase, User } = models();
-	// Someone must be left to give roles and check shops.
-	if (me.role === 'admin' && (await User.count({ where: { role: 'admin' } })) <= 1)
-		error(409, 'You are the only admin. Make someone else an admin before you leave.');
-	const own = await Build.findAll({
-		where: { ownerId: me.id },
-		attributes: ['id', 'publication']
+	return inTransaction(async () => {
+		const { Build, Shop, ReviewCase, User } = models();
+		// Someone must be left to give roles and check shops.
+		if (me.role === 'admin' && (await User.count({ where: { role: 'admin' } })) <= 1)
+			error(409, 'You are the only admin. Make someone else an admin before you leave.');
+		const own = await Build.findAll({
+			where: { ownerId: me.id },
+			attributes: ['id', 'publication']
+		});
+		// Drafts go in both modes: with no owner, nobody could ever see or finish them.
+		const kept = mode === 'keep-anonymised' ? own.filter((b) => b.publication === 'published') : [];
+		for (const b of own) if (!kept.includes(b)) await destroyBuild(b.id);
+		const shop = await Shop.findOne({ where: { ownerId: me.id } });
+		if (shop) await destroyShop(shop);
+		await ReviewCase.update({ authorId: null }, { where: { authorId: me.id } });
+		await log.append({
+			at: now,
+			actorId: null,
+			action: 'account-delete',
+			subjectId: me.id,
+			detail: { mode, builds: own.length }
+		});
+		await User.destroy({ where: { id: me.id } });
+		// Kept builds now have no owner: their list rows are rewritten without the name.
+		for (const b of kept) await refreshListing(b.id);
 	});
-	// Drafts go in both modes: with no owner, nobody could ever see or finish them.
-	const kept = mode === 'keep-anonymised' ? own.filter((b) => b.publication === 'published') : [];
-	for (const b of own) if (!kept.includes(b)) await destroyBuild(b.id);
-	const shop = await Shop.findOne({ where: { ownerId: me.id } });
-	if (shop) await destroyShop(shop);
-	await ReviewCase.update({ authorId: null }, { where: { authorId: me.id } });
-	await log.append({
-		at: now,
-		actorId: null,
-		action: 'account-delete',
-		subjectId: me.id,
-		detail: { mode, builds: own.length }
-	});
-	await User.destroy({ where: { id: me.id } });
-	// Kept builds now have no owner: their list rows are rewritten without the name.
-	for (const b of kept) await refreshListing(b.id);
 }

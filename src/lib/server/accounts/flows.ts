@@ -3,6 +3,7 @@ import { checkPassword, hashPassword } from '../auth/password';
 import { liftAccountLock } from '../auth/password-signin';
 import { endAllSessions } from '../auth/sessions';
 import { db } from '../db/connection';
+import { inTransaction } from '../db/transaction';
 import * as users from '../auth/users';
 import { env } from '../env';
 import { linkLetter, send } from '../mail/send';
@@ -14,30 +15,32 @@ import { linkLetter, send } from '../mail/send';
 const link = (path: string) => new URL(path, env().ORIGIN).toString();
 
 export async function signUp(input: { name: string; email: string; password: string }) {
-	const existing = await users.readByEmail(input.email);
-	if (existing) {
-		// The same argon2 work as a new account, so the answer's timing does not tell them apart.
-		await hashPassword(input.password);
-		// Joined before but never confirmed (the mail was lost, or the relay was down): try again.
-		if (!existing.emailVerified) return sendVerification(existing.id, existing.email);
-		await send(
-			linkLetter({
-				to: existing.email,
-				subject: 'Someone tried to join Squishline with your address',
-				intro: 'This address already has a Squishline account, so no new one was made.',
-				action: 'Sign in or reset your password',
-				url: link('/signin'),
-				outro: 'If that was not you, nothing has changed and you can ignore this mail.'
-			})
-		);
-		return;
-	}
-	const user = await users.create({
-		name: input.name,
-		email: input.email,
-		password: input.password
+	return inTransaction(async () => {
+		const existing = await users.readByEmail(input.email);
+		if (existing) {
+			// The same argon2 work as a new account, so the answer's timing does not tell them apart.
+			await hashPassword(input.password);
+			// Joined before but never confirmed (the mail was lost, or the relay was down): try again.
+			if (!existing.emailVerified) return sendVerification(existing.id, existing.email);
+			await send(
+				linkLetter({
+					to: existing.email,
+					subject: 'Someone tried to join Squishline with your address',
+					intro: 'This address already has a Squishline account, so no new one was made.',
+					action: 'Sign in or reset your password',
+					url: link('/signin'),
+					outro: 'If that was not you, nothing has changed and you can ignore this mail.'
+				})
+			);
+			return;
+		}
+		const user = await users.create({
+			name: input.name,
+			email: input.email,
+			password: input.password
+		});
+		await sendVerification(user.id, user.email);
 	});
-	await sendVerification(user.id, user.email);
 }
 
 /** "Send the confirmation again": a fresh link for an account that is not confirmed yet. */
@@ -87,7 +90,7 @@ export async function requestReset(email: string) {
  * session ended together, or none of it (a half-done reset could leave a thief signed in).
  */
 export async function resetPassword(token: string, password: string) {
-	const used = await db().transaction(async (t) => {
+	const used = await inTransaction(async (t) => {
 		const used = await tokens.consume(token, 'reset', t);
 		if (!used.ok) return used;
 		await users.setPassword(used.userId, password, t);
@@ -118,7 +121,7 @@ export async function changePassword(
 	if (!user) return { ok: false, field: 'current', message: 'That account is gone.' };
 	if (user.passwordHash && !(await checkPassword(user.passwordHash, current)))
 		return { ok: false, field: 'current', message: 'That is not your current password.' };
-	await db().transaction(async (t) => {
+	await inTransaction(async (t) => {
 		await users.setPassword(userId, next, t);
 		await endAllSessions(userId, t);
 	});

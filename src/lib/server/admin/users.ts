@@ -5,6 +5,7 @@ import { ROLES, type Role } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
 import { endAllSessions } from '../auth/sessions';
 import { db } from '../db/connection';
+import { inTransaction } from '../db/transaction';
 import { models, type User } from '../db/models';
 import * as users from '../auth/users';
 import * as log from '../review/log';
@@ -68,17 +69,19 @@ export async function listUsers(f: UserFilter, now: Date) {
 
 /** Changes an account's role; an admin cannot demote themselves (someone must stay admin). */
 export async function changeRole(me: CurrentUser, userId: string, role: Role, now: Date) {
-	const u = await users.read(userId);
-	if (!u) error(404, 'No such account.');
-	if (u.id === me.id) error(403, 'Ask another admin to change your own role.');
-	if (u.role === role) return;
-	await users.update(u.id, { role });
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'change-role',
-		subjectId: u.id,
-		detail: { from: u.role, to: role }
+	return inTransaction(async () => {
+		const u = await users.read(userId);
+		if (!u) error(404, 'No such account.');
+		if (u.id === me.id) error(403, 'Ask another admin to change your own role.');
+		if (u.role === role) return;
+		await users.update(u.id, { role });
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'change-role',
+			subjectId: u.id,
+			detail: { from: u.role, to: role }
+		});
 	});
 }
 
@@ -87,7 +90,7 @@ export async function endSessionsOf(me: CurrentUser, userId: string, now: Date) 
 	const u = await users.read(userId);
 	if (!u) error(404, 'No such account.');
 	// Both or neither: an admin's step is never taken without its line in the log.
-	await db().transaction(async (t) => {
+	await inTransaction(async (t) => {
 		await endAllSessions(u.id, t);
 		await log.append(
 			{ at: now, actorId: me.id, action: 'end-sessions', subjectId: u.id, detail: {} },

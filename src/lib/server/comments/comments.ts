@@ -1,3 +1,4 @@
+import { Failure } from '../../failure';
 import { error } from '@sveltejs/kit';
 import { Op } from 'sequelize';
 import { roleAllows } from '../../roles';
@@ -7,6 +8,7 @@ import { models, type Build, type Comment } from '../db/models';
 import { renderMarkdown } from '../text/markdown';
 import { cautionsFor, readCase } from '../review/cases';
 import { scanText } from '../review/flags';
+import { inTransaction } from '../db/transaction';
 
 export type CommentInput = { body: string; setupId?: number | null; parentId?: number | null };
 
@@ -30,8 +32,6 @@ export type CommentView = {
 	secondLook: 'none' | 'asked' | 'used' | null;
 	replies: number;
 };
-
-export class RateLimited extends Error {}
 
 const open = (b: Build) => b.publication === 'published' && b.moderation === 'visible';
 
@@ -102,7 +102,8 @@ async function checkRate(me: CurrentUser, address: string) {
 		[commentsByAddress, address]
 	]);
 	if (!r.ok)
-		throw new RateLimited(
+		throw new Failure(
+			429,
 			`That is a lot of comments in a short time. Try again in ${waitText(r.retryAfterS)}; your text is kept below.`
 		);
 }
@@ -114,36 +115,38 @@ export async function createComment(
 	address: string,
 	now: Date
 ): Promise<Comment> {
-	const { Comment, Setup } = models();
-	if (!open(b)) error(404, 'No such build.');
-	if (input.setupId) {
-		const s = await Setup.findOne({ where: { id: input.setupId, buildId: b.id } });
-		if (!s) error(400, 'That setup is not part of this build.');
-	}
-	let parentId: number | null = null;
-	let setupId = input.setupId ?? null;
-	if (input.parentId) {
-		const parent = await Comment.findOne({ where: { id: input.parentId, buildId: b.id } });
-		if (!parent || parent.deletedAt || parent.moderation === 'hidden')
-			error(400, 'That comment cannot be replied to.');
-		// One level of replies: answering a reply joins its parent's thread.
-		parentId = parent.parentId ?? parent.id;
-		setupId = parent.setupId;
-	}
-	await checkRate(me, address);
-	const c = await Comment.create({
-		buildId: b.id,
-		setupId,
-		parentId,
-		authorId: me.id,
-		body: input.body,
-		createdAt: now,
-		updatedAt: now,
-		// The owner is not told about their own comments.
-		notifiedAt: me.id === b.ownerId ? now : null
+	return inTransaction(async () => {
+		const { Comment, Setup } = models();
+		if (!open(b)) error(404, 'No such build.');
+		if (input.setupId) {
+			const s = await Setup.findOne({ where: { id: input.setupId, buildId: b.id } });
+			if (!s) error(400, 'That setup is not part of this build.');
+		}
+		let parentId: number | null = null;
+		let setupId = input.setupId ?? null;
+		if (input.parentId) {
+			const parent = await Comment.findOne({ where: { id: input.parentId, buildId: b.id } });
+			if (!parent || parent.deletedAt || parent.moderation === 'hidden')
+				error(400, 'That comment cannot be replied to.');
+			// One level of replies: answering a reply joins its parent's thread.
+			parentId = parent.parentId ?? parent.id;
+			setupId = parent.setupId;
+		}
+		await checkRate(me, address);
+		const c = await Comment.create({
+			buildId: b.id,
+			setupId,
+			parentId,
+			authorId: me.id,
+			body: input.body,
+			createdAt: now,
+			updatedAt: now,
+			// The owner is not told about their own comments.
+			notifiedAt: me.id === b.ownerId ? now : null
+		});
+		await scanText({ type: 'comment', id: c.id }, me.id, c.body, now);
+		return c;
 	});
-	await scanText({ type: 'comment', id: c.id }, me.id, c.body, now);
-	return c;
 }
 
 /** The comment if it is the caller's; 404 otherwise, so others learn nothing about it. */
@@ -154,21 +157,25 @@ export async function ownComment(me: CurrentUser, commentId: number) {
 }
 
 export async function editComment(me: CurrentUser, commentId: number, body: string, now: Date) {
-	const c = await ownComment(me, commentId);
-	const replies = await models().Comment.count({
-		where: { parentId: c.id, deletedAt: { [Op.is]: null } }
+	return inTransaction(async () => {
+		const c = await ownComment(me, commentId);
+		const replies = await models().Comment.count({
+			where: { parentId: c.id, deletedAt: { [Op.is]: null } }
+		});
+		if (!(await editable(c, replies)).edit)
+			error(409, 'Someone has replied, so this comment can no longer be changed.');
+		await c.update({ body, editedAt: now, updatedAt: now });
+		await scanText({ type: 'comment', id: c.id }, me.id, body, now);
+		return c;
 	});
-	if (!(await editable(c, replies)).edit)
-		error(409, 'Someone has replied, so this comment can no longer be changed.');
-	await c.update({ body, editedAt: now, updatedAt: now });
-	await scanText({ type: 'comment', id: c.id }, me.id, body, now);
-	return c;
 }
 
 /** The author's delete leaves a placeholder, so replies keep their place. */
 export async function deleteComment(me: CurrentUser, commentId: number, now: Date) {
-	const c = await ownComment(me, commentId);
-	if (c.deletedAt) return c;
-	await c.update({ body: '', deletedAt: now, updatedAt: now });
-	return c;
+	return inTransaction(async () => {
+		const c = await ownComment(me, commentId);
+		if (c.deletedAt) return c;
+		await c.update({ body: '', deletedAt: now, updatedAt: now });
+		return c;
+	});
 }

@@ -1,8 +1,12 @@
 import fs from 'node:fs';
 import mariadb from 'mariadb';
-import { Sequelize } from 'sequelize';
+import { Sequelize, Transaction } from 'sequelize';
 import { env } from '../env';
+import { namespace } from './context';
 import { rethrowUnavailable } from './unavailable';
+
+// Every query inside `inTransaction` joins it without being handed it (see context.ts).
+Sequelize.useCLS(namespace);
 
 let instance: Sequelize | null = null;
 
@@ -18,6 +22,10 @@ export function db(): Sequelize {
 		dialectModule: mariadb,
 		logging: false,
 		pool: { max: 10, min: 0, idle: 10_000 },
+		// Each change is one transaction; READ COMMITTED keeps InnoDB from taking gap locks on the
+		// ranges a change scans (all of a build's setups), so two members saving different builds
+		// never wait on, or deadlock with, each other. Rows a change writes are still locked.
+		isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED,
 		dialectOptions: {
 			connectTimeout: 3_000,
 			...(e.DB_TLS

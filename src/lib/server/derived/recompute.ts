@@ -2,7 +2,6 @@ import { Op, QueryTypes } from 'sequelize';
 import { deriveRun, deriveSetup } from '../../sheet/derive';
 import { changeKind, judgeStep, type StepRun } from '../../sheet/change-kinds';
 import { models } from '../db/models';
-import { scanBuild } from '../review/flags';
 
 const same = (a: number | null, b: number | null) =>
 	a === null ? b === null : b !== null && Math.abs(a - b) < 1e-9;
@@ -129,8 +128,6 @@ export async function refreshListing(buildId: number): Promise<void> {
 		}
 	);
 	await refreshSteps(buildId);
-	// Every save ends here, so the automatic flags see every published change.
-	await scanBuild(buildId);
 }
 
 /**

@@ -1,6 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db/connection';
+import { detached } from '../db/context';
+import { afterCommit } from '../db/transaction';
 import type { Letter } from './send';
 
 // Every mail goes through a queue in the database: the request that asks for a mail answers at
@@ -23,7 +25,8 @@ export async function enqueue(letter: Letter, transaction?: Transaction): Promis
 		'INSERT INTO mail_queue (to_address, letter, next_attempt_at, created_at) VALUES (?, ?, ?, ?)',
 		{ replacements: [letter.to, JSON.stringify(letter), new Date(), new Date()], transaction }
 	);
-	kick();
+	// A letter queued inside a change can only be sent once that change is committed.
+	await afterCommit(kick);
 }
 
 type Deliver = (letter: Letter) => Promise<void>;
@@ -39,10 +42,12 @@ let kicked = false;
 function kick() {
 	if (kicked || !deliverer) return;
 	kicked = true;
-	setTimeout(() => {
-		kicked = false;
-		flushMailQueue(new Date()).catch((e: unknown) => console.error('[mail queue]', e));
-	}, 0).unref?.();
+	detached(() =>
+		setTimeout(() => {
+			kicked = false;
+			flushMailQueue(new Date()).catch((e: unknown) => console.error('[mail queue]', e));
+		}, 0).unref?.()
+	);
 }
 
 export type FlushResult = { sent: number; failed: number };

@@ -2,7 +2,7 @@ import { error } from '@sveltejs/kit';
 import { ITEM_LABEL, type DeskAction } from '../../review/kinds';
 import { roleAllows } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
-import { db } from '../db/connection';
+import { inTransaction } from '../db/transaction';
 import { models } from '../db/models';
 import * as users from '../auth/users';
 import { deskDecision, suspensionNotice } from '../mail/letters';
@@ -52,32 +52,41 @@ export async function decide(
 	d: Decision,
 	now: Date
 ): Promise<void> {
-	const c = await models().ReviewCase.findByPk(caseId);
-	if (!c) error(404, 'No such case.');
-	const ref: ItemRef = { type: c.itemType, id: c.itemId };
-	const item = await requireItem(ref);
-	if (NEEDS_REASON.includes(d.action) && !d.reason.trim())
-		error(400, 'Say why: the reason is shown or mailed to the author.');
-	const entry = { at: now, actorId: me.id, item: ref, subjectId: item.authorId, reason: d.reason };
-	const spent = c.secondLook === 'asked' ? { secondLook: 'used' as const } : {};
+	// The item, its case, the log line and the queued mail change together or not at all.
+	await inTransaction(async () => {
+		const c = await models().ReviewCase.findByPk(caseId);
+		if (!c) error(404, 'No such case.');
+		const ref: ItemRef = { type: c.itemType, id: c.itemId };
+		const item = await requireItem(ref);
+		if (NEEDS_REASON.includes(d.action) && !d.reason.trim())
+			error(400, 'Say why: the reason is shown or mailed to the author.');
+		const entry = {
+			at: now,
+			actorId: me.id,
+			item: ref,
+			subjectId: item.authorId,
+			reason: d.reason
+		};
+		const spent = c.secondLook === 'asked' ? { secondLook: 'used' as const } : {};
 
-	if (d.action === 'triage') {
-		await c.update({ concern: true, updatedAt: now });
-		await refreshCaution(ref);
-	} else if (d.action === 'dismiss' || d.action === 'hide' || d.action === 'restore') {
-		if (d.action === 'hide') await setHidden(ref, d.reason.trim());
-		if (d.action === 'restore') await setHidden(ref, null);
-		await closeSignals(ref, now);
-		await c.update({ onDesk: false, concern: false, caution: false, updatedAt: now, ...spent });
-		await relist(item);
-	} else if (d.action === 'suspend') {
-		await suspendAuthor(me, item.authorId, d, now, ref);
-		return;
-	}
-	await log.append({ ...entry, action: d.action });
-	if (!MAILED.includes(d.action)) return;
-	const canAskAgain = d.action === 'hide' && c.secondLook === 'none';
-	await mailAuthor(item, d.action, d.reason.trim(), canAskAgain);
+		if (d.action === 'triage') {
+			await c.update({ concern: true, updatedAt: now });
+			await refreshCaution(ref);
+		} else if (d.action === 'dismiss' || d.action === 'hide' || d.action === 'restore') {
+			if (d.action === 'hide') await setHidden(ref, d.reason.trim());
+			if (d.action === 'restore') await setHidden(ref, null);
+			await closeSignals(ref, now);
+			await c.update({ onDesk: false, concern: false, caution: false, updatedAt: now, ...spent });
+			await relist(item);
+		} else if (d.action === 'suspend') {
+			await suspendAuthor(me, item.authorId, d, now, ref);
+			return;
+		}
+		await log.append({ ...entry, action: d.action });
+		if (!MAILED.includes(d.action)) return;
+		const canAskAgain = d.action === 'hide' && c.secondLook === 'none';
+		await mailAuthor(item, d.action, d.reason.trim(), canAskAgain);
+	});
 }
 
 /**
@@ -90,26 +99,23 @@ export async function putBack(me: CurrentUser, ref: ItemRef, reason: string, now
 	if (!item.hidden) error(409, 'This item is not taken down.');
 	const why = reason.trim();
 	if (!why) error(400, 'Say why it goes back up: the reason is logged and mailed to the author.');
-	await db().transaction(async (transaction) => {
-		await setHidden(ref, null, transaction);
+	await inTransaction(async () => {
+		await setHidden(ref, null);
 		await models().ReviewCase.update(
 			{ onDesk: false, concern: false, caution: false, updatedAt: now },
-			{ where: { itemType: ref.type, itemId: ref.id }, transaction }
+			{ where: { itemType: ref.type, itemId: ref.id } }
 		);
-		await log.append(
-			{
-				at: now,
-				actorId: me.id,
-				action: 'restore',
-				item: ref,
-				subjectId: item.authorId,
-				reason: why
-			},
-			transaction
-		);
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'restore',
+			item: ref,
+			subjectId: item.authorId,
+			reason: why
+		});
+		await relist(item);
+		await mailAuthor(item, 'restore', why, false);
 	});
-	await relist(item);
-	await mailAuthor(item, 'restore', why, false);
 }
 
 async function suspendAuthor(
@@ -158,19 +164,23 @@ export async function suspendUser(
 	now: Date
 ) {
 	if (!reason.trim()) error(400, 'Say why: the reason is mailed to the member.');
-	await suspendAuthor(me, userId, { action: 'suspend', reason, days }, now, null);
+	await inTransaction(() =>
+		suspendAuthor(me, userId, { action: 'suspend', reason, days }, now, null)
+	);
 }
 
 export async function liftSuspension(me: CurrentUser, userId: string, reason: string, now: Date) {
 	const u = await users.read(userId);
 	if (!u) error(404, 'No such account.');
-	await users.update(userId, { suspendedAt: null, suspendedUntil: null, suspendedReason: null });
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'lift-suspension',
-		subjectId: userId,
-		reason
+	await inTransaction(async () => {
+		await users.update(userId, { suspendedAt: null, suspendedUntil: null, suspendedReason: null });
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'lift-suspension',
+			subjectId: userId,
+			reason
+		});
 	});
 }
 
@@ -187,7 +197,15 @@ export async function askSecondLook(me: CurrentUser, ref: ItemRef, now: Date): P
 	if (!c || !item.hidden) return { ok: false, message: 'This is not taken down.' };
 	if (c.secondLook !== 'none')
 		return { ok: false, message: 'You already asked for another look at this once.' };
-	await c.update({ secondLook: 'asked', onDesk: true, openedAt: now, updatedAt: now });
-	await log.append({ at: now, actorId: me.id, action: 'second-look', item: ref, subjectId: me.id });
+	await inTransaction(async () => {
+		await c.update({ secondLook: 'asked', onDesk: true, openedAt: now, updatedAt: now });
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'second-look',
+			item: ref,
+			subjectId: me.id
+		});
+	});
 	return { ok: true };
 }

@@ -2,8 +2,6 @@ import { UniqueConstraintError } from 'sequelize';
 import { FLAGGED_WARNINGS, matchRules } from '../../review/rules';
 import { deriveSetup, setupWarnings } from '../../sheet/derive';
 import { models } from '../db/models';
-import * as runs from '../sheet/runs';
-import * as setups from '../sheet/setups';
 import { openCase, refreshCaution } from './cases';
 import type { ItemRef } from './items';
 
@@ -58,9 +56,10 @@ export async function scanBuild(buildId: number, now: Date = new Date()): Promis
 	const b = await models().Build.findByPk(buildId);
 	if (!b || b.publication !== 'published') return;
 	await scanText({ type: 'build', id: b.id }, b.ownerId, `${b.title}\n${b.story}`, now);
+	const { Setup, Run } = models();
 	const [setupRows, runRows] = await Promise.all([
-		setups.listForBuild(b.id),
-		runs.listForBuild(b.id)
+		Setup.findAll({ where: { buildId: b.id }, order: [['position', 'ASC']] }),
+		Run.findAll({ where: { buildId: b.id }, order: [['id', 'ASC']] })
 	]);
 	for (const s of setupRows) {
 		const ref: ItemRef = { type: 'setup', id: s.id };

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { ItemType } from '../../review/kinds';
 import { models } from '../db/models';
 
@@ -116,4 +116,17 @@ export async function setHidden(
 	else if (ref.type === 'setup') await Setup.update(patch, where);
 	else if (ref.type === 'comment') await Comment.update(patch, where);
 	else if (ref.type === 'shop') await models().Shop.update(patch, where);
+}
+
+/**
+ * Removes the desk's reports, flags and cases about items that are being deleted: they point by
+ * type and id, with no foreign key to cascade. The moderation log keeps its lines (append-only).
+ */
+export async function forgetItems(refs: ItemRef[]): Promise<void> {
+	if (refs.length === 0) return;
+	const { Report, Flag, ReviewCase } = models();
+	const where = { [Op.or]: refs.map((r) => ({ itemType: r.type, itemId: r.id })) };
+	await Report.destroy({ where });
+	await Flag.destroy({ where });
+	await ReviewCase.destroy({ where });
 }

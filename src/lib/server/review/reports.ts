@@ -5,6 +5,7 @@ import type { CurrentUser } from '../auth/current-user';
 import { models } from '../db/models';
 import { openCase, refreshCaution } from './cases';
 import { requireItem, type ItemRef } from './items';
+import { inTransaction } from '../db/transaction';
 
 export type ReportResult = { filed: boolean; added: boolean; caution: boolean };
 
@@ -18,27 +19,29 @@ export async function fileReport(
 	input: { reason: ReportReason; note: string },
 	now: Date
 ): Promise<ReportResult> {
-	const item = await requireItem(ref);
-	// Only what the reporter can see can be reported; a draft's existence stays hidden.
-	if (!item.open && item.authorId !== me.id) error(404, 'No such item.');
-	try {
-		await models().Report.create({
-			itemType: ref.type,
-			itemId: ref.id,
-			reporterId: me.id,
-			reason: input.reason,
-			note: input.note,
-			createdAt: now
-		});
-	} catch (e) {
-		if (!(e instanceof UniqueConstraintError)) throw e;
-		// Their report is still open: what they send now is added to it (the reason they chose
-		// last counts), rather than refused.
-		await addToOpenReport(me.id, ref, input);
-		return { filed: true, added: true, caution: await refreshCaution(ref) };
-	}
-	await openCase(ref, item.authorId, now);
-	return { filed: true, added: false, caution: await refreshCaution(ref) };
+	return inTransaction(async () => {
+		const item = await requireItem(ref);
+		// Only what the reporter can see can be reported; a draft's existence stays hidden.
+		if (!item.open && item.authorId !== me.id) error(404, 'No such item.');
+		try {
+			await models().Report.create({
+				itemType: ref.type,
+				itemId: ref.id,
+				reporterId: me.id,
+				reason: input.reason,
+				note: input.note,
+				createdAt: now
+			});
+		} catch (e) {
+			if (!(e instanceof UniqueConstraintError)) throw e;
+			// Their report is still open: what they send now is added to it (the reason they chose
+			// last counts), rather than refused.
+			await addToOpenReport(me.id, ref, input);
+			return { filed: true, added: true, caution: await refreshCaution(ref) };
+		}
+		await openCase(ref, item.authorId, now);
+		return { filed: true, added: false, caution: await refreshCaution(ref) };
+	});
 }
 
 async function addToOpenReport(

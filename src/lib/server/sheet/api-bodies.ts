@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { PART_FIELDS, type Field } from '../../sheet/fields';
 import { schemaFor, toStored, type Mode } from '../../sheet/schema';
-import { parse } from '../api';
+import { parse } from '../../failure';
 
 /**
  * A JSON body for a sheet entity, checked with the same generated schema as its form, in the

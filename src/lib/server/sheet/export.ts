@@ -8,14 +8,15 @@ import { BUILD_FIELDS } from '../../sheet/fields';
 import { RUN_FIELDS } from '../../sheet/run-fields';
 import { roundStored } from '../../sheet/schema';
 import { SETUP_FIELDS } from '../../sheet/setup-fields';
-import { parse } from '../api';
-import * as builds from './builds';
+import { parse } from '../../failure';
 import type { Build } from '../db/models';
 import * as parts from './parts';
 import * as runs from './runs';
 import * as setups from './setups';
 import { env } from '../env';
 import { addPart, runFromColumns, saveRun, saveSetup } from './service';
+import { createBuild } from './build-service';
+import { inTransaction } from '../db/transaction';
 
 const compact = (o: Record<string, unknown>) =>
 	Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null && v !== undefined));
@@ -70,32 +71,34 @@ export async function exportBuild(
 	return normal.success ? normal.data : (doc as BuildSheetExport);
 }
 
-/** Creates a new draft from an export document; never touches an existing build. */
+/**
+ * Creates a new draft from an export document; never touches an existing build. One transaction:
+ * a failure anywhere (a bad part, a lost connection) leaves nothing of it on the member's bench.
+ */
 export async function importBuild(ownerId: string, doc: unknown): Promise<number> {
 	const sheet = parse(exportSchema, doc);
-	const b = await builds.create(ownerId, {
-		...(sheet.build as builds.BuildPatch),
-		title: sheet.build.title as string
+	return inTransaction(async () => {
+		const b = await createBuild(ownerId, sheet.build as Record<string, never>);
+		const ids: number[] = [];
+		for (const s of sheet.setups) {
+			const r = await saveSetup(b.id, {
+				...(s.config as Record<string, never>),
+				changeNote: s.changeNote,
+				isStock: s.isStock
+			});
+			ids.push(r.id);
+			for (const run of s.runs)
+				await saveRun(b.id, r.id, { notes: '', ...(run as Record<string, never>) });
+		}
+		for (const p of sheet.parts) {
+			await addPart(b.id, {
+				category: p.category,
+				name: p.name,
+				cost: p.costMinor / 100,
+				link: p.link,
+				setupId: p.setup === null ? null : (ids[p.setup] ?? null)
+			});
+		}
+		return b.id;
 	});
-	const ids: number[] = [];
-	for (const s of sheet.setups) {
-		const r = (await saveSetup(b.id, {
-			...(s.config as Record<string, never>),
-			changeNote: s.changeNote,
-			isStock: s.isStock
-		})) as { id: number };
-		ids.push(r.id);
-		for (const run of s.runs)
-			await saveRun(b.id, r.id, { notes: '', ...(run as Record<string, never>) });
-	}
-	for (const p of sheet.parts) {
-		await addPart(b.id, {
-			category: p.category,
-			name: p.name,
-			cost: p.costMinor / 100,
-			link: p.link,
-			setupId: p.setup === null ? null : (ids[p.setup] ?? null)
-		});
-	}
-	return b.id;
 }

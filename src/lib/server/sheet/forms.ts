@@ -32,6 +32,3 @@ export async function sheetForm(
 		? superValidate(toForm(fields, stored, units) as never, schema, { errors: false })
 		: superValidate(schema);
 }
-
-export const CONFLICT =
-	'Someone saved this sheet after you opened it (another tab or device). Your changes are still in the form: copy what you need, reload to see the saved version, and save again.';

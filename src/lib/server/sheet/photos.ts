@@ -1,7 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import pLimit from 'p-limit';
 import sharp, { type Sharp } from 'sharp';
+import { Failure } from '../../failure';
 import { models } from '../db/models';
+import { inTransaction } from '../db/transaction';
 import { checkSetupOf } from './service';
 import { deleteObjects, deleteLater, putObject, StorageDown } from '../storage/objects';
 
@@ -10,15 +12,6 @@ export const PHOTO_MAX_COUNT = 12;
 /** 50 megapixels: a full-resolution phone photo fits (8000 × 6000); decoding one takes ~200 MB. */
 export const PHOTO_MAX_PIXELS = 50_000_000;
 const FORMATS = new Set(['jpeg', 'png', 'webp', 'heif']);
-
-export class PhotoError extends Error {
-	constructor(
-		readonly status: 409 | 413 | 415 | 422 | 503,
-		message: string
-	) {
-		super(message);
-	}
-}
 
 export const STORAGE_DOWN =
 	'Photo storage is unavailable just now, so nothing was saved. Try again in a minute.';
@@ -32,17 +25,17 @@ const mp = (n: number) => `${Math.round(n / 100_000) / 10} megapixels`;
 /** The upload rules shared by build photos and shop logos: size, type read from the bytes, pixels. */
 export async function checkImage(bytes: Uint8Array): Promise<string> {
 	if (bytes.byteLength > PHOTO_MAX_BYTES)
-		throw new PhotoError(413, 'That image is over 15 MB. Export it smaller and try again.');
-	if (bytes.byteLength === 0) throw new PhotoError(422, 'The file is empty.');
+		throw new Failure(413, 'That image is over 15 MB. Export it smaller and try again.');
+	if (bytes.byteLength === 0) throw new Failure(422, 'The file is empty.');
 	// The header only (no decoding), with no pixel limit, so a huge image is named as huge.
 	const meta = await sharp(bytes, { limitInputPixels: false })
 		.metadata()
 		.catch(() => null);
 	if (!meta?.format || !FORMATS.has(meta.format))
-		throw new PhotoError(415, 'That file is not a JPEG, PNG, WebP or HEIC image.');
+		throw new Failure(415, 'That file is not a JPEG, PNG, WebP or HEIC image.');
 	const pixels = (meta.width ?? 0) * (meta.height ?? 0);
 	if (pixels > PHOTO_MAX_PIXELS)
-		throw new PhotoError(
+		throw new Failure(
 			413,
 			`That image is ${meta.width} × ${meta.height} pixels (${mp(pixels)}); the most we take is ${mp(PHOTO_MAX_PIXELS)}, such as 8000 × 6000. Export it smaller and try again.`
 		);
@@ -90,7 +83,7 @@ export async function addPhoto(
 			]);
 		});
 	} catch {
-		throw new PhotoError(
+		throw new Failure(
 			415,
 			'We could not read that image (damaged, or a kind of HEIC this server cannot open).'
 		);
@@ -102,7 +95,7 @@ export async function addPhoto(
 		await putObject(keys.thumbKey, thumb, 'image/jpeg');
 		// The count is checked again under a lock on the build row: of several uploads racing for
 		// the last places, only as many as fit are kept.
-		return await Photo.sequelize!.transaction(async (transaction) => {
+		return await inTransaction(async (transaction) => {
 			await Build.findByPk(buildId, { transaction, lock: transaction.LOCK.UPDATE });
 			if ((await Photo.count({ where: { buildId }, transaction })) >= PHOTO_MAX_COUNT) throw full();
 			const max = (await Photo.max('position', { where: { buildId }, transaction })) as
@@ -127,13 +120,13 @@ export async function addPhoto(
 		const both = [keys.displayKey, keys.thumbKey];
 		await deleteObjects(both).catch(() => undefined);
 		deleteLater(both);
-		if (e instanceof StorageDown) throw new PhotoError(503, STORAGE_DOWN);
+		if (e instanceof StorageDown) throw new Failure(503, STORAGE_DOWN);
 		throw e;
 	}
 }
 
 const full = () =>
-	new PhotoError(409, `A build holds at most ${PHOTO_MAX_COUNT} photos. Delete one first.`);
+	new Failure(409, `A build holds at most ${PHOTO_MAX_COUNT} photos. Delete one first.`);
 
 export async function listPhotos(buildId: number) {
 	return models().Photo.findAll({ where: { buildId }, order: [['position', 'ASC']] });
@@ -170,14 +163,8 @@ export async function reorderPhotos(buildId: number, ids: number[]) {
 		...ids.filter((id) => known.has(id)),
 		...photos.map((p) => p.id).filter((id) => !ids.includes(id))
 	];
-	await Photo.sequelize!.transaction(async (transaction) => {
+	await inTransaction(async () => {
 		for (const [i, id] of order.entries())
-			await Photo.update({ position: i + 1 }, { where: { id, buildId }, transaction });
+			await Photo.update({ position: i + 1 }, { where: { id, buildId } });
 	});
-}
-
-/** Removes every photo object of a build (before the build row itself goes). */
-export async function removeBuildPhotos(buildId: number) {
-	const photos = await listPhotos(buildId);
-	await deleteObjects(photos.flatMap((p) => [p.displayKey, p.thumbKey]));
 }

@@ -1,44 +1,56 @@
-import { BUILD_FIELDS } from '../../sheet/fields';
-import { SETUP_FIELDS, STOCK_BASELINE_FIELDS } from '../../sheet/setup-fields';
+import { SETUP_FIELDS } from '../../sheet/setup-fields';
 import { RUN_FIELDS } from '../../sheet/run-fields';
-import { missingFor, roundStored } from '../../sheet/schema';
-import * as builds from './builds';
-import type { Build, Run } from '../db/models';
+import { roundStored } from '../../sheet/schema';
+import type { Run } from '../db/models';
 import type { SetupConfig } from '../db/models/setup';
 import * as parts from './parts';
 import * as runs from './runs';
 import * as setups from './setups';
-import { ApiFailure } from '../../failure';
-import { recomputeBuild, recomputeSetup, refreshListing } from '../derived/recompute';
+import { Failure, fieldFailure } from '../../failure';
+import { recomputeSetup } from '../derived/recompute';
+import { inTransaction } from '../db/transaction';
+import { forgetItems } from '../review/items';
+import { sheetChanged, stale } from './changed';
 
-// The build-sheet rules shared by the form actions (and, later, the JSON API).
+// The changes to a build's setups, runs and parts: one function each, shared by the form
+// actions, the JSON routes, the import and the demo data; each is one transaction.
 
 type Stored = Record<string, string | number | boolean | null>;
 
+/** Saves a new setup or changes one (409 when someone saved it since `existing.version`). */
 export async function saveSetup(
 	buildId: number,
 	stored: Stored,
 	existing?: { id: number; version: number }
-) {
+): Promise<{ id: number }> {
 	// Every door (forms, JSON, import, demo data) passes here: numbers are kept at field precision.
-	const { changeNote, isStock, ...config } = roundStored(SETUP_FIELDS, stored);
-	const note = String(changeNote ?? '');
-	let id = existing?.id;
-	if (existing) {
-		if (
-			!(await setups.update(existing.id, existing.version, {
-				changeNote: note,
-				isStock: Boolean(isStock),
-				config: config as SetupConfig
-			}))
-		)
-			return { conflict: true as const };
-	} else {
-		id = (await setups.create(buildId, note, Boolean(isStock), config as SetupConfig)).id;
-	}
-	await recomputeSetup(id!);
-	await recomputeBuild(buildId);
-	return { id: id! };
+	const { changeNote, isStock, ...values } = roundStored(SETUP_FIELDS, stored);
+	const patch = {
+		changeNote: String(changeNote ?? ''),
+		isStock: Boolean(isStock),
+		config: values as SetupConfig
+	};
+	return inTransaction(async () => {
+		let id = existing?.id;
+		if (existing) {
+			if (!(await setups.update(existing.id, existing.version, patch))) throw stale('setup');
+		} else id = (await setups.create(buildId, patch.changeNote, patch.isStock, patch.config)).id;
+		await recomputeSetup(id!);
+		await sheetChanged(buildId);
+		return { id: id! };
+	});
+}
+
+/**
+ * Deletes a setup with its runs (the foreign key takes them), and the review desk's reports,
+ * flags and cases about it; parts and photos it named stay on the build, tied to no setup.
+ */
+export async function removeSetup(buildId: number, setupId: number): Promise<void> {
+	await inTransaction(async () => {
+		await forgetItems([{ type: 'setup', id: setupId }]);
+		await setups.destroy(setupId);
+		await sheetChanged(buildId);
+	});
 }
 
 /** A new setup starts as a copy of the latest one, with an empty "what changed". */
@@ -87,16 +99,26 @@ export async function saveRun(
 	setupId: number,
 	stored: Stored,
 	existing?: { id: number; version: number }
-) {
+): Promise<{ id: number }> {
 	const values = runToColumns(roundStored(RUN_FIELDS, stored));
-	let id = existing?.id;
-	if (existing) {
-		if (!(await runs.update(existing.id, existing.version, { ...values, setupId } as never)))
-			return { conflict: true as const };
-	} else id = (await runs.create(buildId, setupId, values)).id;
-	await recomputeSetup(setupId);
-	await recomputeBuild(buildId);
-	return { id: id! };
+	return inTransaction(async () => {
+		let id = existing?.id;
+		if (existing) {
+			if (!(await runs.update(existing.id, existing.version, { ...values, setupId } as never)))
+				throw stale('run');
+		} else id = (await runs.create(buildId, setupId, values)).id;
+		await recomputeSetup(setupId);
+		await sheetChanged(buildId);
+		return { id: id! };
+	});
+}
+
+export async function removeRun(buildId: number, run: { id: number; setupId: number }) {
+	await inTransaction(async () => {
+		await runs.destroy(run.id);
+		await recomputeSetup(run.setupId);
+		await sheetChanged(buildId);
+	});
 }
 
 /**
@@ -107,8 +129,7 @@ export async function checkSetupOf(buildId: number, setupId: number | null): Pro
 	if (setupId === null) return;
 	const ok = Number.isInteger(setupId) && (await setups.read(buildId, setupId)) !== null;
 	if (!ok) {
-		const message = 'Choose one of this build’s setups (or none).';
-		throw new ApiFailure(422, message, [{ path: 'setupId', message }]);
+		throw fieldFailure(422, 'setupId', 'Choose one of this build’s setups (or none).');
 	}
 }
 
@@ -131,50 +152,28 @@ export function partToStored(p: parts.PartValues): Stored {
 	};
 }
 
-export async function addPart(buildId: number, stored: Stored) {
-	await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
-	await parts.create(buildId, partValues(stored));
-	await recomputeBuild(buildId);
-}
-
-/** Changes a listed part; false when it is not (or no longer) on this build. */
-export async function updatePart(buildId: number, partId: number, stored: Stored) {
-	await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
-	if (!(await parts.update(buildId, partId, partValues(stored)))) return false;
-	await recomputeBuild(buildId);
-	return true;
-}
-
-export async function removePart(buildId: number, partId: number) {
-	await parts.destroy(buildId, partId);
-	await recomputeBuild(buildId);
-}
-
-/** What stops a build from being published, in words; empty when it may go out. */
-export async function publishProblems(b: Build): Promise<string[]> {
-	const problems = missingFor('build-publish', BUILD_FIELDS, b.get({ plain: true })).map(
-		(l) => `Build: ${l}`
-	);
-	const list = await setups.listForBuild(b.id);
-	if (list.length === 0) problems.push('At least one setup is needed.');
-	for (const s of list) {
-		const fields = s.isStock ? STOCK_BASELINE_FIELDS : SETUP_FIELDS;
-		for (const l of missingFor(s.isStock ? 'stock-publish' : 'setup-publish', fields, {
-			...s.config,
-			changeNote: s.changeNote,
-			isStock: s.isStock
-		})) {
-			problems.push(`Setup ${s.position} (${s.changeNote}): ${l}`);
-		}
-	}
-	return problems;
-}
-
-export async function setPublication(b: Build, state: 'draft' | 'published') {
-	const ok = await builds.update(b.id, b.version, {
-		publication: state,
-		publishedAt: state === 'published' ? (b.publishedAt ?? new Date()) : b.publishedAt
+export async function addPart(buildId: number, stored: Stored): Promise<{ id: number }> {
+	return inTransaction(async () => {
+		await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
+		const p = await parts.create(buildId, partValues(stored));
+		await sheetChanged(buildId);
+		return { id: p.id };
 	});
-	await refreshListing(b.id);
-	return ok;
+}
+
+/** Changes a listed part; 404 when it is not (or no longer) on this build. */
+export async function updatePart(buildId: number, partId: number, stored: Stored): Promise<void> {
+	await inTransaction(async () => {
+		await checkSetupOf(buildId, stored.setupId ? Number(stored.setupId) : null);
+		if (!(await parts.update(buildId, partId, partValues(stored))))
+			throw new Failure(404, 'That part is no longer on this build.');
+		await sheetChanged(buildId);
+	});
+}
+
+export async function removePart(buildId: number, partId: number): Promise<void> {
+	await inTransaction(async () => {
+		await parts.destroy(buildId, partId);
+		await sheetChanged(buildId);
+	});
 }

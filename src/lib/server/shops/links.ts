@@ -7,6 +7,7 @@ import { send } from '../mail/send';
 import * as log from '../review/log';
 import { linkRequest } from './letters';
 import { checkToken, makeToken, type Checked } from './tokens';
+import { inTransaction } from '../db/transaction';
 
 export type LinkDecision = 'approve' | 'decline';
 
@@ -76,60 +77,62 @@ export async function requestLink(
 	input: { buildId: number; kind: 'built' | 'tuned'; note: string },
 	now: Date
 ): Promise<ShopLink> {
-	const { ShopLink } = models();
-	const b = await builds.read(input.buildId);
-	const visible = b && b.publication === 'published' && b.moderation === 'visible';
-	if (!b || (!visible && b.ownerId !== me.id)) error(404, 'No such build.');
-	if (!b.ownerId) error(409, 'That build has no owner any more to ask.');
-	const open = await ShopLink.findOne({
-		where: { buildId: b.id, shopId: shop.id, state: ['requested', 'approved'] }
-	});
-	if (open)
-		error(
-			409,
-			open.state === 'approved'
-				? 'Your shop is already named on that build.'
-				: 'Your shop already asked; the owner has not answered yet.'
-		);
-	// A shop's own build needs no one's approval.
-	const own = b.ownerId === shop.ownerId;
-	const l = await ShopLink.create({
-		buildId: b.id,
-		shopId: shop.id,
-		kind: input.kind,
-		note: input.note,
-		state: own ? 'approved' : 'requested',
-		requestedBy: me.id,
-		decidedAt: own ? now : null
-	});
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: own ? 'link-approve' : 'link-request',
-		item: { type: 'build', id: b.id },
-		subjectId: b.ownerId,
-		detail: { shopId: shop.id, linkId: l.id, kind: input.kind }
-	});
-	if (!own) {
-		const owner = await users.read(b.ownerId);
-		if (owner)
-			await send(
-				linkRequest({
-					to: owner.email,
-					shopName: shop.name,
-					verified: shop.verifiedAt !== null,
-					buildId: b.id,
-					buildTitle: b.title,
-					kind: input.kind,
-					note: input.note,
-					token: {
-						approve: makeToken('shop-link', { l: l.id, d: 'approve' }, now),
-						decline: makeToken('shop-link', { l: l.id, d: 'decline' }, now)
-					}
-				})
+	return inTransaction(async () => {
+		const { ShopLink } = models();
+		const b = await builds.read(input.buildId);
+		const visible = b && b.publication === 'published' && b.moderation === 'visible';
+		if (!b || (!visible && b.ownerId !== me.id)) error(404, 'No such build.');
+		if (!b.ownerId) error(409, 'That build has no owner any more to ask.');
+		const open = await ShopLink.findOne({
+			where: { buildId: b.id, shopId: shop.id, state: ['requested', 'approved'] }
+		});
+		if (open)
+			error(
+				409,
+				open.state === 'approved'
+					? 'Your shop is already named on that build.'
+					: 'Your shop already asked; the owner has not answered yet.'
 			);
-	}
-	return l;
+		// A shop's own build needs no one's approval.
+		const own = b.ownerId === shop.ownerId;
+		const l = await ShopLink.create({
+			buildId: b.id,
+			shopId: shop.id,
+			kind: input.kind,
+			note: input.note,
+			state: own ? 'approved' : 'requested',
+			requestedBy: me.id,
+			decidedAt: own ? now : null
+		});
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: own ? 'link-approve' : 'link-request',
+			item: { type: 'build', id: b.id },
+			subjectId: b.ownerId,
+			detail: { shopId: shop.id, linkId: l.id, kind: input.kind }
+		});
+		if (!own) {
+			const owner = await users.read(b.ownerId);
+			if (owner)
+				await send(
+					linkRequest({
+						to: owner.email,
+						shopName: shop.name,
+						verified: shop.verifiedAt !== null,
+						buildId: b.id,
+						buildTitle: b.title,
+						kind: input.kind,
+						note: input.note,
+						token: {
+							approve: makeToken('shop-link', { l: l.id, d: 'approve' }, now),
+							decline: makeToken('shop-link', { l: l.id, d: 'decline' }, now)
+						}
+					})
+				);
+		}
+		return l;
+	});
 }
 
 /** What a mailed link is about, for its page (nothing is changed by looking). */
@@ -178,53 +181,58 @@ export async function decideLink(
 	decision: LinkDecision | null,
 	now: Date
 ): Promise<{ ok: true; link: LinkView } | { ok: false; problem: 'forged' | 'expired' | 'used' }> {
-	const { ShopLink } = models();
-	let id: number;
-	let d: LinkDecision;
-	if ('token' in by) {
-		const c = checkToken<{ l: number; d: LinkDecision }>('shop-link', by.token, now);
-		if (!c.ok) return c;
-		id = c.payload.l;
-		d = c.payload.d;
-	} else {
-		id = by.linkId;
-		d = decision!;
-	}
-	const l = await ShopLink.findByPk(id);
-	const b = l && (await builds.read(l.buildId));
-	if (!l || !b) return { ok: false, problem: 'used' };
-	if ('me' in by && b.ownerId !== by.me.id) error(404, 'No such request on your builds.');
-	// The state check and the change in one statement, so two clicks cannot both count.
-	const [changed] = await ShopLink.update(
-		{ state: d === 'approve' ? 'approved' : 'declined', decidedAt: now },
-		{ where: { id: l.id, state: 'requested' } }
-	);
-	if (changed !== 1) return { ok: false, problem: 'used' };
-	await log.append({
-		at: now,
-		actorId: 'me' in by ? by.me.id : b.ownerId,
-		action: d === 'approve' ? 'link-approve' : 'link-decline',
-		item: { type: 'build', id: b.id },
-		subjectId: b.ownerId,
-		detail: { shopId: l.shopId, linkId: l.id, via: 'token' in by ? 'mail' : 'app' }
+	return inTransaction(async () => {
+		const { ShopLink } = models();
+		let id: number;
+		let d: LinkDecision;
+		if ('token' in by) {
+			const c = checkToken<{ l: number; d: LinkDecision }>('shop-link', by.token, now);
+			if (!c.ok) return c;
+			id = c.payload.l;
+			d = c.payload.d;
+		} else {
+			id = by.linkId;
+			d = decision!;
+		}
+		const l = await ShopLink.findByPk(id);
+		const b = l && (await builds.read(l.buildId));
+		if (!l || !b) return { ok: false, problem: 'used' };
+		if ('me' in by && b.ownerId !== by.me.id) error(404, 'No such request on your builds.');
+		// The state check and the change in one statement, so two clicks cannot both count.
+		const [changed] = await ShopLink.update(
+			{ state: d === 'approve' ? 'approved' : 'declined', decidedAt: now },
+			{ where: { id: l.id, state: 'requested' } }
+		);
+		if (changed !== 1) return { ok: false, problem: 'used' };
+		await log.append({
+			at: now,
+			actorId: 'me' in by ? by.me.id : b.ownerId,
+			action: d === 'approve' ? 'link-approve' : 'link-decline',
+			item: { type: 'build', id: b.id },
+			subjectId: b.ownerId,
+			detail: { shopId: l.shopId, linkId: l.id, via: 'token' in by ? 'mail' : 'app' }
+		});
+		return { ok: true, link: (await describeLink(l.id))! };
 	});
-	return { ok: true, link: (await describeLink(l.id))! };
 }
 
 /** The owner takes a shop's name off their build, at any time. */
 export async function unlink(me: CurrentUser, linkId: number, now: Date) {
-	const { ShopLink } = models();
-	const l = await ShopLink.findByPk(linkId);
-	const b = l && (await builds.read(l.buildId));
-	if (!l || !b || b.ownerId !== me.id) error(404, 'No such link on your builds.');
-	if (l.state !== 'approved') error(409, 'That link is not shown, so there is nothing to remove.');
-	await l.update({ state: 'unlinked', decidedAt: now });
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'link-remove',
-		item: { type: 'build', id: b.id },
-		subjectId: me.id,
-		detail: { shopId: l.shopId, linkId: l.id }
+	return inTransaction(async () => {
+		const { ShopLink } = models();
+		const l = await ShopLink.findByPk(linkId);
+		const b = l && (await builds.read(l.buildId));
+		if (!l || !b || b.ownerId !== me.id) error(404, 'No such link on your builds.');
+		if (l.state !== 'approved')
+			error(409, 'That link is not shown, so there is nothing to remove.');
+		await l.update({ state: 'unlinked', decidedAt: now });
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'link-remove',
+			item: { type: 'build', id: b.id },
+			subjectId: me.id,
+			detail: { shopId: l.shopId, linkId: l.id }
+		});
 	});
 }

@@ -1,6 +1,7 @@
+import { Failure } from '../../failure';
 import { randomUUID } from 'node:crypto';
 import type { Shop } from '../db/models';
-import { checkImage, PhotoError, STORAGE_DOWN, withImage } from '../sheet/photos';
+import { checkImage, STORAGE_DOWN, withImage } from '../sheet/photos';
 import { deleteLater, deleteObjects, putObject, StorageDown } from '../storage/objects';
 
 /**
@@ -21,7 +22,7 @@ export async function setLogo(shop: Shop, bytes: Uint8Array): Promise<void> {
 				.toBuffer()
 		);
 	} catch {
-		throw new PhotoError(415, 'We could not read that image.');
+		throw new Failure(415, 'We could not read that image.');
 	}
 	const key = `shops/${shop.id}/logo-${randomUUID()}.jpg`;
 	const previous = shop.logoKey;
@@ -31,7 +32,7 @@ export async function setLogo(shop: Shop, bytes: Uint8Array): Promise<void> {
 	} catch (e) {
 		await deleteObjects([key]).catch(() => undefined);
 		deleteLater([key]);
-		if (e instanceof StorageDown) throw new PhotoError(503, STORAGE_DOWN);
+		if (e instanceof StorageDown) throw new Failure(503, STORAGE_DOWN);
 		throw e;
 	}
 	const old = previous;

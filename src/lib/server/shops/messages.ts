@@ -1,3 +1,4 @@
+import { Failure } from '../../failure';
 import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { messagesByAccount, messagesByAddress, spend, waitText } from '../auth/limits';
@@ -5,8 +6,7 @@ import { models, type Shop } from '../db/models';
 import * as users from '../auth/users';
 import { send } from '../mail/send';
 import { shopMessage, shopReply } from './letters';
-
-export class MessageLimited extends Error {}
+import { inTransaction } from '../db/transaction';
 
 /**
  * A member writes to a shop through the app. The shop's owner gets the words and the sender's
@@ -19,34 +19,37 @@ export async function sendMessage(
 	address: string,
 	now: Date
 ) {
-	if (shop.ownerId === me.id) error(400, 'That is your own shop.');
-	const r = await spend([
-		[messagesByAccount, me.id],
-		[messagesByAddress, address]
-	]);
-	if (!r.ok)
-		throw new MessageLimited(
-			`You have sent several messages in a short time. Try again in ${waitText(r.retryAfterS)}; your text is kept below.`
-		);
-	const m = await models().ShopMessage.create({
-		shopId: shop.id,
-		senderId: me.id,
-		body,
-		createdAt: now,
-		updatedAt: now
+	return inTransaction(async () => {
+		if (shop.ownerId === me.id) error(400, 'That is your own shop.');
+		const r = await spend([
+			[messagesByAccount, me.id],
+			[messagesByAddress, address]
+		]);
+		if (!r.ok)
+			throw new Failure(
+				429,
+				`You have sent several messages in a short time. Try again in ${waitText(r.retryAfterS)}; your text is kept below.`
+			);
+		const m = await models().ShopMessage.create({
+			shopId: shop.id,
+			senderId: me.id,
+			body,
+			createdAt: now,
+			updatedAt: now
+		});
+		const owner = await users.read(shop.ownerId);
+		if (owner)
+			await send(
+				shopMessage({
+					to: owner.email,
+					shopId: shop.id,
+					shopName: shop.name,
+					senderName: me.name ?? 'A Squishline member',
+					body
+				})
+			);
+		return m;
 	});
-	const owner = await users.read(shop.ownerId);
-	if (owner)
-		await send(
-			shopMessage({
-				to: owner.email,
-				shopId: shop.id,
-				shopName: shop.name,
-				senderName: me.name ?? 'A Squishline member',
-				body
-			})
-		);
-	return m;
 }
 
 export type MessageView = {
@@ -87,21 +90,23 @@ export async function replyToMessage(
 	reply: string,
 	now: Date
 ) {
-	const { ShopMessage } = models();
-	const m = await ShopMessage.findOne({ where: { id: messageId, shopId: shop.id } });
-	if (!m) error(404, 'No such message to your shop.');
-	if (m.repliedAt) error(409, 'This message has its reply; write to the sender directly now.');
-	await m.update({ reply, repliedAt: now, repliedBy: me.id, updatedAt: now });
-	const sender = await users.read(m.senderId);
-	if (sender)
-		await send(
-			shopReply({
-				to: sender.email,
-				shopId: shop.id,
-				shopName: shop.name,
-				original: m.body,
-				reply,
-				shopAddress: me.email
-			})
-		);
+	return inTransaction(async () => {
+		const { ShopMessage } = models();
+		const m = await ShopMessage.findOne({ where: { id: messageId, shopId: shop.id } });
+		if (!m) error(404, 'No such message to your shop.');
+		if (m.repliedAt) error(409, 'This message has its reply; write to the sender directly now.');
+		await m.update({ reply, repliedAt: now, repliedBy: me.id, updatedAt: now });
+		const sender = await users.read(m.senderId);
+		if (sender)
+			await send(
+				shopReply({
+					to: sender.email,
+					shopId: shop.id,
+					shopName: shop.name,
+					original: m.body,
+					reply,
+					shopAddress: me.email
+				})
+			);
+	});
 }

@@ -6,7 +6,8 @@ import type { CurrentUser } from '../auth/current-user';
 import type { LinkedBuild } from '../../shops/summary';
 import { models, type Shop } from '../db/models';
 import * as log from '../review/log';
-import { deleteObjects } from '../storage/objects';
+import { deleteAfterCommit } from '../storage/objects';
+import { inTransaction } from '../db/transaction';
 
 export type ShopInput = z.output<typeof shopSchema>;
 
@@ -56,11 +57,13 @@ export async function requireOwnShop(me: CurrentUser): Promise<Shop> {
 
 /** Creates or updates the owner's shop page. */
 export async function saveShop(me: CurrentUser, input: ShopInput): Promise<Shop> {
-	if (!roleAllows(me.role, 'shop')) error(403, 'This needs the shop role.');
-	const { Shop } = models();
-	const existing = await Shop.findOne({ where: { ownerId: me.id } });
-	if (existing) return existing.update(input);
-	return Shop.create({ ownerId: me.id, ...input });
+	return inTransaction(async () => {
+		if (!roleAllows(me.role, 'shop')) error(403, 'This needs the shop role.');
+		const { Shop } = models();
+		const existing = await Shop.findOne({ where: { ownerId: me.id } });
+		if (existing) return existing.update(input);
+		return Shop.create({ ownerId: me.id, ...input });
+	});
 }
 
 /** Shop pages readers may see, by name. */
@@ -101,17 +104,19 @@ export async function setVerified(
 	reason: string,
 	now: Date
 ) {
-	if (!roleAllows(me.role, 'admin')) error(403, 'Only an admin verifies shops.');
-	const shop = await readShop(shopId);
-	if (!shop) error(404, 'No such shop.');
-	await shop.update({ verifiedAt: verified ? now : null });
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: verified ? 'verify-shop' : 'unverify-shop',
-		item: { type: 'shop', id: shop.id },
-		subjectId: shop.ownerId,
-		reason
+	return inTransaction(async () => {
+		if (!roleAllows(me.role, 'admin')) error(403, 'Only an admin verifies shops.');
+		const shop = await readShop(shopId);
+		if (!shop) error(404, 'No such shop.');
+		await shop.update({ verifiedAt: verified ? now : null });
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: verified ? 'verify-shop' : 'unverify-shop',
+			item: { type: 'shop', id: shop.id },
+			subjectId: shop.ownerId,
+			reason
+		});
 	});
 }
 
@@ -168,6 +173,8 @@ export async function linkedBuilds(shopId: number): Promise<LinkedBuild[]> {
 
 /** Removes a shop page and its logo object (account deletion). */
 export async function destroyShop(shop: Shop) {
-	if (shop.logoKey) await deleteObjects([shop.logoKey]);
-	await shop.destroy();
+	await inTransaction(async () => {
+		await shop.destroy();
+		if (shop.logoKey) await deleteAfterCommit([shop.logoKey]);
+	});
 }

@@ -6,6 +6,7 @@ import { send } from '../mail/send';
 import * as log from '../review/log';
 import { staffInvite } from './letters';
 import { checkToken, makeToken, type TokenProblem } from './tokens';
+import { inTransaction } from '../db/transaction';
 
 export async function staffOf(shopId: number) {
 	const { ShopStaff } = models();
@@ -15,41 +16,45 @@ export async function staffOf(shopId: number) {
 
 /** The owner invites an address; the invitation mail carries a signed, one-day link. */
 export async function inviteStaff(me: CurrentUser, shop: Shop, email: string, now: Date) {
-	const { ShopStaff } = models();
-	const address = normaliseEmail(email);
-	if (address === normaliseEmail(me.email)) error(400, 'You are the owner already.');
-	const [row] = await ShopStaff.findOrCreate({
-		where: { shopId: shop.id, email: address },
-		defaults: { shopId: shop.id, email: address }
-	});
-	if (row.acceptedAt) error(409, 'That address is already on your staff.');
-	await send(
-		staffInvite({
-			to: address,
-			shopName: shop.name,
-			token: makeToken('shop-staff', { s: row.id, e: address }, now)
-		})
-	);
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'staff-invite',
-		item: { type: 'shop', id: shop.id },
-		subjectId: me.id,
-		detail: { to: address }
+	return inTransaction(async () => {
+		const { ShopStaff } = models();
+		const address = normaliseEmail(email);
+		if (address === normaliseEmail(me.email)) error(400, 'You are the owner already.');
+		const [row] = await ShopStaff.findOrCreate({
+			where: { shopId: shop.id, email: address },
+			defaults: { shopId: shop.id, email: address }
+		});
+		if (row.acceptedAt) error(409, 'That address is already on your staff.');
+		await send(
+			staffInvite({
+				to: address,
+				shopName: shop.name,
+				token: makeToken('shop-staff', { s: row.id, e: address }, now)
+			})
+		);
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'staff-invite',
+			item: { type: 'shop', id: shop.id },
+			subjectId: me.id,
+			detail: { to: address }
+		});
 	});
 }
 
 export async function removeStaff(me: CurrentUser, shop: Shop, staffId: number, now: Date) {
-	const n = await models().ShopStaff.destroy({ where: { id: staffId, shopId: shop.id } });
-	if (n !== 1) error(404, 'No such person on your staff.');
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'staff-remove',
-		item: { type: 'shop', id: shop.id },
-		subjectId: me.id,
-		detail: { staffId }
+	return inTransaction(async () => {
+		const n = await models().ShopStaff.destroy({ where: { id: staffId, shopId: shop.id } });
+		if (n !== 1) error(404, 'No such person on your staff.');
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'staff-remove',
+			item: { type: 'shop', id: shop.id },
+			subjectId: me.id,
+			detail: { staffId }
+		});
 	});
 }
 

@@ -1,6 +1,7 @@
 import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { db } from '../db/connection';
+import { inTransaction } from '../db/transaction';
 import { models, type BuildTransfer, type Shop } from '../db/models';
 import * as builds from '../sheet/builds';
 import { normaliseEmail } from '../auth/users';
@@ -69,55 +70,59 @@ export async function offerHandover(
 	input: { buildId: number; email: string },
 	now: Date
 ) {
-	const { BuildTransfer } = models();
-	const b = await builds.read(input.buildId);
-	const ours = b && (b.ownerId === shop.ownerId || b.ownerId === me.id);
-	if (!b || !ours || !(await handsOver(shop, b.ownerId)))
-		error(404, 'No such build sheet of your shop.');
-	const email = normaliseEmail(input.email);
-	const pending = await BuildTransfer.findOne({ where: { buildId: b.id, state: 'pending' } });
-	if (pending)
-		error(409, `That sheet is already offered to ${pending.toEmail}. Withdraw that first.`);
-	const t = await BuildTransfer.create({
-		buildId: b.id,
-		shopId: shop.id,
-		toEmail: email,
-		state: 'pending'
+	return inTransaction(async () => {
+		const { BuildTransfer } = models();
+		const b = await builds.read(input.buildId);
+		const ours = b && (b.ownerId === shop.ownerId || b.ownerId === me.id);
+		if (!b || !ours || !(await handsOver(shop, b.ownerId)))
+			error(404, 'No such build sheet of your shop.');
+		const email = normaliseEmail(input.email);
+		const pending = await BuildTransfer.findOne({ where: { buildId: b.id, state: 'pending' } });
+		if (pending)
+			error(409, `That sheet is already offered to ${pending.toEmail}. Withdraw that first.`);
+		const t = await BuildTransfer.create({
+			buildId: b.id,
+			shopId: shop.id,
+			toEmail: email,
+			state: 'pending'
+		});
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'handover-offer',
+			item: { type: 'build', id: b.id },
+			subjectId: shop.ownerId,
+			detail: { shopId: shop.id, transferId: t.id, to: email }
+		});
+		await send(
+			transferOffer({
+				to: email,
+				shopName: shop.name,
+				buildTitle: b.title,
+				token: makeToken('build-transfer', { t: t.id }, now)
+			})
+		);
+		return t;
 	});
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'handover-offer',
-		item: { type: 'build', id: b.id },
-		subjectId: shop.ownerId,
-		detail: { shopId: shop.id, transferId: t.id, to: email }
-	});
-	await send(
-		transferOffer({
-			to: email,
-			shopName: shop.name,
-			buildTitle: b.title,
-			token: makeToken('build-transfer', { t: t.id }, now)
-		})
-	);
-	return t;
 }
 
 export async function withdrawHandover(me: CurrentUser, shop: Shop, transferId: number, now: Date) {
-	const { BuildTransfer } = models();
-	const [n] = await BuildTransfer.update(
-		{ state: 'cancelled', decidedAt: now },
-		{ where: { id: transferId, shopId: shop.id, state: 'pending' } }
-	);
-	if (n !== 1) error(409, 'That offer is not open any more.');
-	const t = (await BuildTransfer.findByPk(transferId))!;
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'handover-withdraw',
-		item: { type: 'build', id: t.buildId },
-		subjectId: shop.ownerId,
-		detail: { shopId: shop.id, transferId }
+	return inTransaction(async () => {
+		const { BuildTransfer } = models();
+		const [n] = await BuildTransfer.update(
+			{ state: 'cancelled', decidedAt: now },
+			{ where: { id: transferId, shopId: shop.id, state: 'pending' } }
+		);
+		if (n !== 1) error(409, 'That offer is not open any more.');
+		const t = (await BuildTransfer.findByPk(transferId))!;
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'handover-withdraw',
+			item: { type: 'build', id: t.buildId },
+			subjectId: shop.ownerId,
+			detail: { shopId: shop.id, transferId }
+		});
 	});
 }
 
@@ -176,7 +181,7 @@ export async function acceptHandover(
 	const from = await models().Build.findByPk(t.buildId, { attributes: ['ownerId'] });
 	if (!shop || !from || !(await handsOver(shop, from.ownerId)))
 		return { ok: false, problem: 'used' };
-	const moved = await db().transaction(async (transaction) => {
+	const moved = await inTransaction(async (transaction) => {
 		const [n] = await BuildTransfer.update(
 			{ state: 'accepted', decidedAt: now },
 			{ where: { id: t.id, state: 'pending' }, transaction }

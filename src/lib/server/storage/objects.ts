@@ -1,3 +1,5 @@
+import { detached } from '../db/context';
+import { afterCommit } from '../db/transaction';
 import {
 	DeleteObjectCommand,
 	GetObjectCommand,
@@ -135,11 +137,13 @@ export function deleteLater(keys: string[]): void {
 	for (const k of keys) pendingLate.add(k);
 	LATE_DELETE_AFTER_MS.forEach((ms, i) => {
 		const last = i === LATE_DELETE_AFTER_MS.length - 1;
-		setTimeout(() => {
-			// After the last try the keys are forgotten, so the set does not grow for ever.
-			if (last) for (const k of keys) pendingLate.delete(k);
-			void deleteNow(keys);
-		}, ms).unref();
+		detached(() =>
+			setTimeout(() => {
+				// After the last try the keys are forgotten, so the set does not grow for ever.
+				if (last) for (const k of keys) pendingLate.delete(k);
+				void deleteNow(keys);
+			}, ms).unref()
+		);
 	});
 }
 
@@ -156,4 +160,13 @@ export async function flushLateDeletes(): Promise<void> {
 	const keys = [...pendingLate];
 	pendingLate.clear();
 	await deleteNow(keys);
+}
+
+/**
+ * Deletes objects whose rows are being deleted, once that is committed (never for a change that
+ * rolls back); if the store is down just then, later.
+ */
+export async function deleteAfterCommit(keys: string[]): Promise<void> {
+	if (keys.length === 0) return;
+	await afterCommit(() => deleteObjects(keys).catch(() => deleteLater(keys)));
 }

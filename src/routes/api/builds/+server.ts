@@ -1,6 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { api, created, parse, readJson } from '$lib/server/api';
-import * as builds from '$lib/server/sheet/builds';
+import { api, parse, readJson } from '$lib/server/api';
+import { createBuild } from '$lib/server/sheet/build-service';
+import { createOnce } from '$lib/server/web/idempotency';
 import { listBuilds } from '$lib/server/search/build-list';
 import { currencyFor, unitsFor } from '$lib/server/sheet/units';
 import { buildListSchema } from '$lib/schemas/build-list';
@@ -18,10 +19,10 @@ export const GET: RequestHandler = api(async (event) => {
 
 export const POST: RequestHandler = api(async (event) => {
 	const me = requireUser(event);
-	const stored = sheetBody('build', BUILD_FIELDS, await readJson(event.request), 'draft');
-	const b = await builds.create(me.id, {
-		...(stored as builds.BuildPatch),
-		title: String(stored.title)
+	const body = await readJson(event.request);
+	const stored = sheetBody('build', BUILD_FIELDS, body, 'draft');
+	return createOnce(event.request, me.id, body, async () => {
+		const b = await createBuild(me.id, stored);
+		return { id: b.id, version: b.version, publication: b.publication };
 	});
-	return created({ id: b.id, version: b.version, publication: b.publication });
 });

@@ -1,5 +1,5 @@
 import { reportSchema } from '$lib/schemas/review';
-import { api, ApiFailure, created, parse, readJson } from '$lib/server/api';
+import { api, Failure, created, parse, readJson } from '$lib/server/api';
 import { reportsByAccount, reportsByAddress, spend, waitText } from '$lib/server/auth/limits';
 import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
@@ -14,7 +14,7 @@ export const POST: RequestHandler = api(async (event) => {
 		[reportsByAddress, event.getClientAddress()]
 	]);
 	if (!limit.ok)
-		throw new ApiFailure(429, `Too many reports; try again in ${waitText(limit.retryAfterS)}.`);
+		throw new Failure(429, `Too many reports; try again in ${waitText(limit.retryAfterS)}.`);
 	const r = await fileReport(
 		me,
 		{ type: body.itemType, id: body.itemId },

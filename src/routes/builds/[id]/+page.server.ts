@@ -1,3 +1,4 @@
+import { Failure } from '$lib/failure';
 import { error, fail, redirect } from '@sveltejs/kit';
 import QRCode from 'qrcode';
 import {
@@ -11,8 +12,7 @@ import {
 	createComment,
 	deleteComment,
 	editComment,
-	listComments,
-	RateLimited
+	listComments
 } from '$lib/server/comments/comments';
 import { env } from '$lib/server/env';
 import { requireUser } from '$lib/server/guard';
@@ -120,8 +120,8 @@ export const actions: Actions = {
 			const c = await createComment(me, build, form.data, event.getClientAddress(), clock());
 			back(build.id, `comment-${c.id}`);
 		} catch (e) {
-			if (e instanceof RateLimited)
-				return fail(429, { talk: { slot, body: form.data.body, message: e.message } });
+			if (e instanceof Failure)
+				return fail(e.status, { talk: { slot, body: form.data.body, message: e.message } });
 			throw e;
 		}
 	},

@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { ApiFailure } from '$lib/server/api';
-import * as builds from '$lib/server/sheet/builds';
+import { Failure } from '$lib/server/api';
+import { createBuild } from '$lib/server/sheet/build-service';
 import { importBuild } from '$lib/server/sheet/export';
 import { requireUser } from '$lib/server/guard';
 import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
@@ -49,7 +49,7 @@ export const actions: Actions = {
 		try {
 			id = await importBuild(me.id, doc);
 		} catch (e) {
-			if (e instanceof ApiFailure)
+			if (e instanceof Failure)
 				return fail(422, {
 					importProblems: e.issues.length ? e.issues : [{ path: '', message: e.message }]
 				});
@@ -61,10 +61,7 @@ export const actions: Actions = {
 		const me = requireUser(event);
 		const { form, stored } = await readSheetForm(event.request, 'build', BUILD_FIELDS);
 		if (!form.valid) return fail(400, { form });
-		const b = await builds.create(me.id, {
-			...(stored as builds.BuildPatch),
-			title: String(stored.title)
-		});
+		const b = await createBuild(me.id, stored);
 		redirect(303, `/builds/${b.id}/setups/new`);
 	}
 };

@@ -1,9 +1,10 @@
+import { Failure } from '$lib/failure';
 import { error, fail } from '@sveltejs/kit';
 import { messageSchema } from '$lib/schemas/shops';
 import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
-import { MessageLimited, sendMessage } from '$lib/server/shops/messages';
+import { sendMessage } from '$lib/server/shops/messages';
 import { linkedBuilds, shopView, viewShop } from '$lib/server/shops/pages';
 import { summarise } from '$lib/shops/summary';
 import type { Actions, PageServerLoad } from './$types';
@@ -41,8 +42,8 @@ export const actions: Actions = {
 		try {
 			await sendMessage(me, shop, form.data.body, event.getClientAddress(), clock());
 		} catch (e) {
-			if (e instanceof MessageLimited)
-				return fail(429, { contact: { body: form.data.body, message: e.message } });
+			if (e instanceof Failure)
+				return fail(e.status, { contact: { body: form.data.body, message: e.message } });
 			throw e;
 		}
 		return { sent: true };

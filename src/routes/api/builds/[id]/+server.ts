@@ -1,11 +1,10 @@
 import { json } from '@sveltejs/kit';
-import { api, ApiFailure, noContent, readJson } from '$lib/server/api';
+import { api, noContent, readJson } from '$lib/server/api';
 import * as builds from '$lib/server/sheet/builds';
+import { destroyBuild, saveBuild } from '$lib/server/sheet/build-service';
 import { editBuild, idParam, readBuild, seesTakenDown } from '$lib/server/sheet/access';
 import { sheetBody, versionOf } from '$lib/server/sheet/api-bodies';
 import { exportBuild } from '$lib/server/sheet/export';
-import { refreshListing } from '$lib/server/derived/recompute';
-import { destroyBuild } from '$lib/server/sheet/remove';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
 import type { RequestHandler } from './$types';
 
@@ -29,10 +28,7 @@ export const PATCH: RequestHandler = api(async (event) => {
 		{ ...(await fullBuild(build.id)), ...(body as object) },
 		'draft'
 	);
-	if (!(await builds.update(build.id, version, stored as builds.BuildPatch)))
-		throw new ApiFailure(409, 'The build changed since that version; fetch it again.');
-	await refreshListing(build.id);
-	return json({ id: build.id, version: version + 1 });
+	return json(await saveBuild(build.id, version, stored));
 });
 
 export const DELETE: RequestHandler = api(async (event) => {

@@ -1,25 +1,29 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { message, setError, superValidate } from 'sveltekit-superforms';
+import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
-import * as builds from '$lib/server/sheet/builds';
-import { ApiFailure } from '$lib/failure';
+import { Failure } from '$lib/failure';
 import * as parts from '$lib/server/sheet/parts';
 import * as runs from '$lib/server/sheet/runs';
 import * as setups from '$lib/server/sheet/setups';
 import { editBuild, idParam } from '$lib/server/sheet/access';
-import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import {
+	destroyBuild,
+	publish,
+	publishProblems,
+	saveBuild,
+	setPublication
+} from '$lib/server/sheet/build-service';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
 import {
 	addPhoto,
 	listPhotos,
-	PhotoError,
 	removePhoto,
 	reorderPhotos,
 	updatePhoto
 } from '$lib/server/sheet/photos';
-import { refreshListing } from '$lib/server/derived/recompute';
-import { destroyBuild } from '$lib/server/sheet/remove';
-import { addPart, publishProblems, removePart, setPublication } from '$lib/server/sheet/service';
+import { addPart, removePart } from '$lib/server/sheet/service';
 import { unitsFor } from '$lib/server/sheet/units';
+import { formFailure, plainFailure } from '$lib/server/web/form-failure';
 import { BUILD_FIELDS, PART_FIELDS } from '$lib/sheet/fields';
 import { schemaFor } from '$lib/sheet/schema';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
@@ -84,9 +88,11 @@ export const actions: Actions = {
 		const { build } = await mine(event);
 		const { form, stored, version } = await readSheetForm(event.request, 'build', BUILD_FIELDS);
 		if (!form.valid) return fail(400, { form });
-		if (!(await builds.update(build.id, version, stored as builds.BuildPatch)))
-			return message(form, CONFLICT, { status: 409 });
-		await refreshListing(build.id);
+		try {
+			await saveBuild(build.id, version, stored);
+		} catch (e) {
+			return formFailure(form, e);
+		}
 		return message(form, 'Saved.');
 	},
 	addPart: async (event) => {
@@ -96,9 +102,7 @@ export const actions: Actions = {
 		try {
 			await addPart(build.id, stored);
 		} catch (e) {
-			if (e instanceof ApiFailure)
-				return setError(form, 'setupId' as never, e.message, { status: 422 });
-			throw e;
+			return formFailure(form, e);
 		}
 		redirect(303, `/builds/${build.id}/edit#parts`);
 	},
@@ -121,12 +125,7 @@ export const actions: Actions = {
 				setupId: Number(fd.get('setupId')) || null
 			});
 		} catch (e) {
-			if (e instanceof PhotoError || e instanceof ApiFailure)
-				return fail(e.status, {
-					photoProblem: e.message,
-					caption: String(fd.get('caption') ?? '')
-				});
-			throw e;
+			return plainFailure(e, 'photoProblem', { caption: String(fd.get('caption') ?? '') });
 		}
 		redirect(303, `/builds/${build.id}/edit#photos`);
 	},
@@ -141,8 +140,7 @@ export const actions: Actions = {
 				setupId: Number(fd.get('setupId')) || null
 			});
 		} catch (e) {
-			if (e instanceof ApiFailure) return fail(e.status, { photoProblem: e.message });
-			throw e;
+			return plainFailure(e, 'photoProblem');
 		}
 		redirect(303, `/builds/${build.id}/edit#photos`);
 	},
@@ -164,9 +162,12 @@ export const actions: Actions = {
 	},
 	publish: async (event) => {
 		const { build } = await mine(event);
-		const problems = await publishProblems(build);
-		if (problems.length) return fail(400, { publishProblems: problems });
-		await setPublication(build, 'published');
+		try {
+			await publish(build);
+		} catch (e) {
+			if (!(e instanceof Failure) || e.status !== 400) throw e;
+			return fail(400, { publishProblems: e.issues.map((i) => i.message) });
+		}
 		redirect(303, `/builds/${build.id}`);
 	},
 	unpublish: async (event) => {

@@ -1,8 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { commentSchema } from '$lib/schemas/review';
-import { api, ApiFailure, created, parse, readJson } from '$lib/server/api';
+import { api, parse, readJson } from '$lib/server/api';
+import { createOnce } from '$lib/server/web/idempotency';
 import { clock } from '$lib/clock';
-import { createComment, listComments, RateLimited } from '$lib/server/comments/comments';
+import { createComment, listComments } from '$lib/server/comments/comments';
 import { requireUser } from '$lib/server/guard';
 import { idParam, readBuild } from '$lib/server/sheet/access';
 import type { RequestHandler } from './$types';
@@ -30,11 +31,7 @@ export const POST: RequestHandler = api(async (event) => {
 	const me = requireUser(event);
 	const { build } = await readBuild(event, idParam(event.params.id));
 	const body = parse(commentSchema, await readJson(event.request));
-	try {
-		const c = await createComment(me, build, body, event.getClientAddress(), clock());
-		return created({ id: c.id });
-	} catch (e) {
-		if (e instanceof RateLimited) throw new ApiFailure(429, e.message);
-		throw e;
-	}
+	return createOnce(event.request, me.id, body, async () => ({
+		id: (await createComment(me, build, body, event.getClientAddress(), clock())).id
+	}));
 });

@@ -1,5 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { api, created, readJson } from '$lib/server/api';
+import { requireUser } from '$lib/server/guard';
+import { api, readJson } from '$lib/server/api';
+import { createOnce } from '$lib/server/web/idempotency';
 import * as parts from '$lib/server/sheet/parts';
 import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
 import { partBody } from '$lib/server/sheet/api-bodies';
@@ -24,6 +26,10 @@ export const GET: RequestHandler = api(async (event) => {
 
 export const POST: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
-	await addPart(build.id, partBody(await readJson(event.request)));
-	return created({ ok: true });
+	const body = await readJson(event.request);
+	const stored = partBody(body);
+	return createOnce(event.request, requireUser(event).id, body, async () => ({
+		ok: true,
+		...(await addPart(build.id, stored))
+	}));
 });

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { api, ApiFailure, created } from '$lib/server/api';
+import { api, Failure, created } from '$lib/server/api';
 import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
 import { addPhoto, listPhotos, PHOTO_MAX_BYTES } from '$lib/server/sheet/photos';
 import type { RequestHandler } from './$types';
@@ -26,13 +26,13 @@ export const POST: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
 	// Refuse an oversize body before reading it (the route's own limit, below the server's).
 	if (Number(event.request.headers.get('content-length') ?? 0) > PHOTO_MAX_BYTES + 64 * 1024)
-		throw new ApiFailure(413, 'That photo is over 15 MB. Export it smaller and try again.');
+		throw new Failure(413, 'That photo is over 15 MB. Export it smaller and try again.');
 	if (!(event.request.headers.get('content-type') ?? '').startsWith('multipart/form-data'))
-		throw new ApiFailure(415, 'Send the photo as multipart/form-data with a "file" field.');
+		throw new Failure(415, 'Send the photo as multipart/form-data with a "file" field.');
 	const fd = await event.request.formData();
 	const file = fd.get('file');
 	if (!(file instanceof File) || file.size === 0)
-		throw new ApiFailure(422, 'Choose a photo to upload.', [{ path: 'file', message: 'Needed.' }]);
+		throw new Failure(422, 'Choose a photo to upload.', [{ path: 'file', message: 'Needed.' }]);
 	const setupId = Number(fd.get('setupId')) || null;
 	const photo = await addPhoto(build.id, new Uint8Array(await file.arrayBuffer()), {
 		caption: String(fd.get('caption') ?? ''),

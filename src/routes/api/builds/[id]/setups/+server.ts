@@ -1,5 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { api, created, readJson } from '$lib/server/api';
+import { requireUser } from '$lib/server/guard';
+import { api, readJson } from '$lib/server/api';
+import { createOnce } from '$lib/server/web/idempotency';
 import * as setups from '$lib/server/sheet/setups';
 import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
 import { sheetBody } from '$lib/server/sheet/api-bodies';
@@ -27,7 +29,7 @@ export const GET: RequestHandler = api(async (event) => {
 
 export const POST: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
-	const stored = sheetBody('setup', SETUP_FIELDS, await readJson(event.request), 'draft');
-	const r = (await saveSetup(build.id, stored)) as { id: number };
-	return created({ id: r.id });
+	const body = await readJson(event.request);
+	const stored = sheetBody('setup', SETUP_FIELDS, body, 'draft');
+	return createOnce(event.request, requireUser(event).id, body, () => saveSetup(build.id, stored));
 });

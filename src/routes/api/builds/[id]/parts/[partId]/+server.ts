@@ -1,6 +1,5 @@
 import { json } from '@sveltejs/kit';
 import { api, noContent, readJson } from '$lib/server/api';
-import { ApiFailure } from '$lib/failure';
 import { editBuild, idParam } from '$lib/server/sheet/access';
 import { partBody } from '$lib/server/sheet/api-bodies';
 import { removePart, updatePart } from '$lib/server/sheet/service';
@@ -10,8 +9,7 @@ import type { RequestHandler } from './$types';
 export const PUT: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
 	const stored = partBody(await readJson(event.request));
-	if (!(await updatePart(build.id, Number(event.params.partId), stored)))
-		throw new ApiFailure(404, 'No such part.');
+	await updatePart(build.id, Number(event.params.partId), stored);
 	return json({ ok: true });
 });
 

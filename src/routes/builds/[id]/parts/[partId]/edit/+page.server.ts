@@ -1,11 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { message, setError } from 'sveltekit-superforms';
 import * as setups from '$lib/server/sheet/setups';
-import { ApiFailure } from '$lib/failure';
 import { editPart } from '$lib/server/sheet/access';
 import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
 import { partToStored, removePart, updatePart } from '$lib/server/sheet/service';
 import { unitsFor } from '$lib/server/sheet/units';
+import { formFailure } from '$lib/server/web/form-failure';
 import { PART_FIELDS } from '$lib/sheet/fields';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -29,12 +28,9 @@ export const actions: Actions = {
 		const { form, stored } = await readSheetForm(event.request, 'part', PART_FIELDS, 'complete');
 		if (!form.valid) return fail(400, { form });
 		try {
-			if (!(await updatePart(build.id, part.id, stored)))
-				return message(form, 'That part is no longer on this build.', { status: 404 });
+			await updatePart(build.id, part.id, stored);
 		} catch (e) {
-			if (e instanceof ApiFailure)
-				return setError(form, 'setupId' as never, e.message, { status: 422 });
-			throw e;
+			return formFailure(form, e);
 		}
 		redirect(303, `/builds/${build.id}/edit#parts`);
 	},

@@ -1,10 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { message } from 'sveltekit-superforms';
-import * as runs from '$lib/server/sheet/runs';
 import { editRun } from '$lib/server/sheet/access';
-import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheet/forms';
-import { recomputeBuild, recomputeSetup } from '$lib/server/derived/recompute';
-import { runFromColumns, saveRun } from '$lib/server/sheet/service';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { removeRun, runFromColumns, saveRun } from '$lib/server/sheet/service';
+import { formFailure } from '$lib/server/web/form-failure';
 import { unitsFor } from '$lib/server/sheet/units';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { Actions, PageServerLoad } from './$types';
@@ -31,15 +29,16 @@ export const actions: Actions = {
 			'complete'
 		);
 		if (!form.valid) return fail(400, { form });
-		const r = await saveRun(build.id, run.setupId, stored, { id: run.id, version });
-		if ('conflict' in r) return message(form, CONFLICT, { status: 409 });
+		try {
+			await saveRun(build.id, run.setupId, stored, { id: run.id, version });
+		} catch (e) {
+			return formFailure(form, e);
+		}
 		redirect(303, `/builds/${build.id}/edit`);
 	},
 	remove: async (event) => {
 		const { build, run } = await editRun(event);
-		await runs.destroy(run.id);
-		await recomputeSetup(run.setupId);
-		await recomputeBuild(build.id);
+		await removeRun(build.id, run);
 		redirect(303, `/builds/${build.id}/edit`);
 	}
 };

@@ -1,10 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { message } from 'sveltekit-superforms';
-import * as setups from '$lib/server/sheet/setups';
-import { recomputeBuild } from '$lib/server/derived/recompute';
 import { editSetup } from '$lib/server/sheet/access';
-import { CONFLICT, readSheetForm, sheetForm } from '$lib/server/sheet/forms';
-import { saveSetup } from '$lib/server/sheet/service';
+import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
+import { removeSetup, saveSetup } from '$lib/server/sheet/service';
+import { formFailure } from '$lib/server/web/form-failure';
 import { unitsFor } from '$lib/server/sheet/units';
 import { SETUP_FIELDS } from '$lib/sheet/setup-fields';
 import type { Actions, PageServerLoad } from './$types';
@@ -30,14 +28,16 @@ export const actions: Actions = {
 		const { build, setup } = await editSetup(event);
 		const { form, stored, version } = await readSheetForm(event.request, 'setup', SETUP_FIELDS);
 		if (!form.valid) return fail(400, { form });
-		const r = await saveSetup(build.id, stored, { id: setup.id, version });
-		if ('conflict' in r) return message(form, CONFLICT, { status: 409 });
+		try {
+			await saveSetup(build.id, stored, { id: setup.id, version });
+		} catch (e) {
+			return formFailure(form, e);
+		}
 		redirect(303, `/builds/${build.id}/edit`);
 	},
 	remove: async (event) => {
 		const { build, setup } = await editSetup(event);
-		await setups.destroy(setup.id);
-		await recomputeBuild(build.id);
+		await removeSetup(build.id, setup.id);
 		redirect(303, `/builds/${build.id}/edit`);
 	}
 };

@@ -1,5 +1,7 @@
 import { error, json } from '@sveltejs/kit';
-import { api, created, readJson } from '$lib/server/api';
+import { requireUser } from '$lib/server/guard';
+import { api, readJson } from '$lib/server/api';
+import { createOnce } from '$lib/server/web/idempotency';
 import * as runs from '$lib/server/sheet/runs';
 import * as setups from '$lib/server/sheet/setups';
 import { editBuild, idParam, readBuild } from '$lib/server/sheet/access';
@@ -21,7 +23,9 @@ export const POST: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, idParam(event.params.id));
 	const setup = await setups.read(build.id, Number(event.params.setupId));
 	if (!setup) error(404, 'No such setup.');
-	const stored = sheetBody('run', RUN_FIELDS, await readJson(event.request), 'complete');
-	const r = (await saveRun(build.id, setup.id, stored)) as { id: number };
-	return created({ id: r.id });
+	const body = await readJson(event.request);
+	const stored = sheetBody('run', RUN_FIELDS, body, 'complete');
+	return createOnce(event.request, requireUser(event).id, body, () =>
+		saveRun(build.id, setup.id, stored)
+	);
 });
