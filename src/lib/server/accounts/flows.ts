@@ -2,7 +2,6 @@ import * as tokens from '../auth/email-tokens';
 import { checkPassword, hashPassword } from '../auth/password';
 import { liftAccountLock } from '../auth/password-signin';
 import { endAllSessions } from '../auth/sessions';
-import { db } from '../db/connection';
 import { inTransaction } from '../db/transaction';
 import * as users from '../auth/users';
 import { env } from '../env';

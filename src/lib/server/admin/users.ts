@@ -4,7 +4,6 @@ import { activeSuspension } from '../../review/suspension';
 import { ROLES, type Role } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
 import { endAllSessions } from '../auth/sessions';
-import { db } from '../db/connection';
 import { inTransaction } from '../db/transaction';
 import { models, type User } from '../db/models';
 import * as users from '../auth/users';

@@ -1,6 +1,5 @@
 import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
-import { db } from '../db/connection';
 import { inTransaction } from '../db/transaction';
 import { models, type BuildTransfer, type Shop } from '../db/models';
 import * as builds from '../sheet/builds';
