@@ -44,8 +44,10 @@ export async function signUp(input: { name: string; email: string; password: str
 
 /** "Send the confirmation again": a fresh link for an account that is not confirmed yet. */
 export async function resendConfirmation(email: string) {
-	const user = await users.readByEmail(email);
-	if (user && !user.emailVerified) await sendVerification(user.id, user.email);
+	return inTransaction(async () => {
+		const user = await users.readByEmail(email);
+		if (user && !user.emailVerified) await sendVerification(user.id, user.email);
+	});
 }
 
 async function sendVerification(userId: string, email: string) {
@@ -63,25 +65,30 @@ async function sendVerification(userId: string, email: string) {
 }
 
 export async function confirmAddress(token: string) {
-	const used = await tokens.consume(token, 'verify');
-	if (used.ok) await users.markVerified(used.userId);
-	return used;
+	return inTransaction(async () => {
+		const used = await tokens.consume(token, 'verify');
+		if (used.ok) await users.markVerified(used.userId);
+		return used;
+	});
 }
 
 export async function requestReset(email: string) {
-	const user = await users.readByEmail(email);
-	if (!user) return;
-	const token = await tokens.issue(user.id, 'reset');
-	await send(
-		linkLetter({
-			to: user.email,
-			subject: 'Reset your Squishline password',
-			intro: 'Someone (we hope you) asked to reset the password of this Squishline account.',
-			action: 'Choose a new password',
-			url: link(`/reset/${token}`),
-			outro: 'The link works once, for one hour. If you did not ask, your password stays as it was.'
-		})
-	);
+	return inTransaction(async () => {
+		const user = await users.readByEmail(email);
+		if (!user) return;
+		const token = await tokens.issue(user.id, 'reset');
+		await send(
+			linkLetter({
+				to: user.email,
+				subject: 'Reset your Squishline password',
+				intro: 'Someone (we hope you) asked to reset the password of this Squishline account.',
+				action: 'Choose a new password',
+				url: link(`/reset/${token}`),
+				outro:
+					'The link works once, for one hour. If you did not ask, your password stays as it was.'
+			})
+		);
+	});
 }
 
 /**

@@ -62,18 +62,20 @@ export type JoinResult = { ok: true; shopName: string } | { ok: false; problem: 
 
 /** The invited account joins, if it is signed in with the invited address. */
 export async function joinStaff(me: CurrentUser, token: string, now: Date): Promise<JoinResult> {
-	const c = checkToken<{ s: number; e: string }>('shop-staff', token, now);
-	if (!c.ok) return c;
-	const { ShopStaff, Shop } = models();
-	const row = await ShopStaff.findByPk(c.payload.s);
-	if (!row || row.email !== c.payload.e) return { ok: false, problem: 'used' };
-	if (row.email !== normaliseEmail(me.email))
-		error(403, `This invitation is for ${row.email}; sign in with that address.`);
-	const [n] = await ShopStaff.update(
-		{ userId: me.id, acceptedAt: now },
-		{ where: { id: row.id, acceptedAt: null } }
-	);
-	if (n !== 1) return { ok: false, problem: 'used' };
-	const shop = await Shop.findByPk(row.shopId);
-	return { ok: true, shopName: shop?.name ?? 'the shop' };
+	return inTransaction(async () => {
+		const c = checkToken<{ s: number; e: string }>('shop-staff', token, now);
+		if (!c.ok) return c;
+		const { ShopStaff, Shop } = models();
+		const row = await ShopStaff.findByPk(c.payload.s);
+		if (!row || row.email !== c.payload.e) return { ok: false, problem: 'used' };
+		if (row.email !== normaliseEmail(me.email))
+			error(403, `This invitation is for ${row.email}; sign in with that address.`);
+		const [n] = await ShopStaff.update(
+			{ userId: me.id, acceptedAt: now },
+			{ where: { id: row.id, acceptedAt: null } }
+		);
+		if (n !== 1) return { ok: false, problem: 'used' };
+		const shop = await Shop.findByPk(row.shopId);
+		return { ok: true, shopName: shop?.name ?? 'the shop' };
+	});
 }

@@ -165,61 +165,63 @@ export async function acceptHandover(
 	by: { token: string } | { transferId: number },
 	now: Date
 ): Promise<HandoverCheck> {
-	const { BuildTransfer, ShopLink, Shop } = models();
-	let id: number;
-	if ('token' in by) {
-		const c = checkToken<{ t: number }>('build-transfer', by.token, now);
-		if (!c.ok) return c;
-		id = c.payload.t;
-	} else id = by.transferId;
-	const t = await BuildTransfer.findByPk(id);
-	if (!t) return { ok: false, problem: 'used' };
-	if (t.toEmail !== normaliseEmail(me.email))
-		error(403, `This sheet was offered to ${t.toEmail}; sign in with that address to accept it.`);
-	const shop = await Shop.findByPk(t.shopId);
-	const from = await models().Build.findByPk(t.buildId, { attributes: ['ownerId'] });
-	if (!shop || !from || !(await handsOver(shop, from.ownerId)))
-		return { ok: false, problem: 'used' };
-	const moved = await inTransaction(async (transaction) => {
-		const [n] = await BuildTransfer.update(
-			{ state: 'accepted', decidedAt: now },
-			{ where: { id: t.id, state: 'pending' }, transaction }
-		);
-		if (n !== 1) return false;
-		await models().Build.update(
-			{ ownerId: me.id },
-			{ where: { id: t.buildId, ownerId: from.ownerId! }, transaction }
-		);
-		{
-			const named = await ShopLink.count({
-				where: { buildId: t.buildId, shopId: shop.id, state: 'approved' },
-				transaction
-			});
-			if (!named)
-				await ShopLink.create(
-					{
-						buildId: t.buildId,
-						shopId: shop.id,
-						kind: 'built',
-						state: 'approved',
-						requestedBy: shop.ownerId,
-						decidedAt: now
-					},
-					{ transaction }
-				);
-		}
-		return true;
+	return inTransaction(async () => {
+		const { BuildTransfer, ShopLink, Shop } = models();
+		let id: number;
+		if ('token' in by) {
+			const c = checkToken<{ t: number }>('build-transfer', by.token, now);
+			if (!c.ok) return c;
+			id = c.payload.t;
+		} else id = by.transferId;
+		const t = await BuildTransfer.findByPk(id);
+		if (!t) return { ok: false, problem: 'used' };
+		if (t.toEmail !== normaliseEmail(me.email))
+			error(403, `This sheet was offered to ${t.toEmail}; sign in with that address to accept it.`);
+		const shop = await Shop.findByPk(t.shopId);
+		const from = await models().Build.findByPk(t.buildId, { attributes: ['ownerId'] });
+		if (!shop || !from || !(await handsOver(shop, from.ownerId)))
+			return { ok: false, problem: 'used' };
+		const moved = await inTransaction(async (transaction) => {
+			const [n] = await BuildTransfer.update(
+				{ state: 'accepted', decidedAt: now },
+				{ where: { id: t.id, state: 'pending' }, transaction }
+			);
+			if (n !== 1) return false;
+			await models().Build.update(
+				{ ownerId: me.id },
+				{ where: { id: t.buildId, ownerId: from.ownerId! }, transaction }
+			);
+			{
+				const named = await ShopLink.count({
+					where: { buildId: t.buildId, shopId: shop.id, state: 'approved' },
+					transaction
+				});
+				if (!named)
+					await ShopLink.create(
+						{
+							buildId: t.buildId,
+							shopId: shop.id,
+							kind: 'built',
+							state: 'approved',
+							requestedBy: shop.ownerId,
+							decidedAt: now
+						},
+						{ transaction }
+					);
+			}
+			return true;
+		});
+		const h = (await view(t.id))!;
+		if (!moved) return { ok: false, problem: 'used', handover: h };
+		await log.append({
+			at: now,
+			actorId: me.id,
+			action: 'handover-accept',
+			item: { type: 'build', id: t.buildId },
+			subjectId: me.id,
+			detail: { shopId: t.shopId, transferId: t.id, via: 'token' in by ? 'mail' : 'app' }
+		});
+		await refreshListing(t.buildId);
+		return { ok: true, handover: h };
 	});
-	const h = (await view(t.id))!;
-	if (!moved) return { ok: false, problem: 'used', handover: h };
-	await log.append({
-		at: now,
-		actorId: me.id,
-		action: 'handover-accept',
-		item: { type: 'build', id: t.buildId },
-		subjectId: me.id,
-		detail: { shopId: t.shopId, transferId: t.id, via: 'token' in by ? 'mail' : 'app' }
-	});
-	await refreshListing(t.buildId);
-	return { ok: true, handover: h };
 }
