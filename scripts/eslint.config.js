@@ -4,6 +4,7 @@ import svelte from 'eslint-plugin-svelte';
 import globals from 'globals';
 import ts from 'typescript-eslint';
 import svelteConfig from '../svelte.config.js';
+import { boundaries } from './lint/boundaries.js';
 
 export default ts.config(
 	{
@@ -37,5 +38,6 @@ export default ts.config(
 			'svelte/no-navigation-without-resolve': 'off',
 			'@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_' }]
 		}
-	}
+	},
+	...boundaries
 );

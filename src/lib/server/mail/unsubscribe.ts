@@ -1,4 +1,3 @@
-import * as users from '../auth/users';
 import { env } from '../env';
 import { readToken, signToken } from './signed-links';
 
@@ -19,8 +18,4 @@ export function readUnsubscribe(token: string): { userId: string; topic: Topic }
 	const p = readToken<{ u?: unknown; t?: unknown }>('unsubscribe', token);
 	if (!p || typeof p.u !== 'string' || typeof p.t !== 'string' || !(p.t in TOPICS)) return null;
 	return { userId: p.u, topic: p.t as Topic };
-}
-
-export async function unsubscribe(userId: string, topic: Topic): Promise<void> {
-	await users.update(userId, { [TOPICS[topic].field]: false });
 }

@@ -31,6 +31,19 @@ export async function actsFor(me: CurrentUser, shop: Shop): Promise<boolean> {
 	return (await models().ShopStaff.count({ where: { shopId: shop.id, userId: me.id } })) > 0;
 }
 
+/** The account's own shop page, if it has one. */
+export async function ownShop(userId: string): Promise<Shop | null> {
+	return models().Shop.findOne({ where: { ownerId: userId } });
+}
+
+/** Whether an account sees the shop desk: shop accounts always, others once on a shop's staff. */
+export async function seesShopDesk(me: CurrentUser): Promise<boolean> {
+	return (
+		roleAllows(me.role, 'shop') ||
+		(await models().ShopStaff.count({ where: { userId: me.id } })) > 0
+	);
+}
+
 /** The shop an account acts for: its own shop page first, else the first it is staff of. */
 export async function shopOf(me: CurrentUser): Promise<Shop | null> {
 	const { Shop, ShopStaff } = models();

@@ -3,7 +3,7 @@ import { accountDeleteSchema } from '$lib/schemas/shops';
 import { deleteAccount } from '$lib/server/accounts/deletion';
 import { clock } from '$lib/clock';
 import * as builds from '$lib/server/sheet/builds';
-import { models } from '$lib/server/db/models';
+import { ownShop } from '$lib/server/shops/pages';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
 import type { Actions, PageServerLoad } from './$types';
@@ -11,7 +11,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const me = requireUser(event);
 	const own = await builds.listBench(me.id);
-	const shop = await models().Shop.findOne({ where: { ownerId: me.id } });
+	const shop = await ownShop(me.id);
 	return {
 		email: me.email,
 		builds: own.length,

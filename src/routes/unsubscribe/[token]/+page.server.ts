@@ -1,5 +1,6 @@
 import { fail } from '@sveltejs/kit';
-import { TOPICS, readUnsubscribe, unsubscribe } from '$lib/server/mail/unsubscribe';
+import { unsubscribe } from '$lib/server/accounts/mail-choices';
+import { TOPICS, readUnsubscribe } from '$lib/server/mail/unsubscribe';
 import type { Actions, PageServerLoad } from './$types';
 
 // No sign-in: the signed link is the permission, so it works from any mail client. Reading the
