@@ -7,17 +7,17 @@ import { exportBuild } from '../../src/lib/server/sheet/export';
 import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { addPhoto } from '../../src/lib/server/sheet/photos';
 import { objectExists } from '../../src/lib/server/storage/objects';
-import { GET as photoGet } from '../../src/routes/api/photos/[id]/[size]/+server';
+import { GET as photoGet } from '../../src/routes/api/photos/[id=id]/[size]/+server';
 import { POST as buildsPost } from '../../src/routes/api/builds/+server';
 import {
 	DELETE as buildDelete,
 	GET as buildGet,
 	PATCH as buildPatch
-} from '../../src/routes/api/builds/[id]/+server';
+} from '../../src/routes/api/builds/[id=id]/+server';
 import { POST as importPost } from '../../src/routes/api/builds/import/+server';
-import { POST as photoPost } from '../../src/routes/api/builds/[id]/photos/+server';
+import { POST as photoPost } from '../../src/routes/api/builds/[id=id]/photos/+server';
 import { GET as schemaGet } from '../../src/routes/api/schema/build-sheet.json/+server';
-import { GET as csvGet } from '../../src/routes/api/builds/[id]/runs.csv/+server';
+import { GET as csvGet } from '../../src/routes/api/builds/[id=id]/runs.csv/+server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
 

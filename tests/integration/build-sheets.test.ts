@@ -7,11 +7,11 @@ import { renderMarkdown } from '../../src/lib/server/text/markdown';
 import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { buildView } from '../../src/lib/server/sheet/view';
-import { load as viewLoad } from '../../src/routes/builds/[id]/+page.server';
+import { load as viewLoad } from '../../src/routes/builds/[id=id]/+page.server';
 import {
 	actions as editActions,
 	load as editLoad
-} from '../../src/routes/builds/[id]/edit/+page.server';
+} from '../../src/routes/builds/[id=id]/edit/+page.server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
 

@@ -3,7 +3,7 @@ import { closeDb } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
 import { createBuild } from '../../src/lib/server/sheet/build-service';
 import { saveSetup } from '../../src/lib/server/sheet/service';
-import { POST as runsPost } from '../../src/routes/api/builds/[id]/setups/[setupId]/runs/+server';
+import { POST as runsPost } from '../../src/routes/api/builds/[id=id]/setups/[setupId=id]/runs/+server';
 import { POST as buildsPost } from '../../src/routes/api/builds/+server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';

@@ -14,7 +14,7 @@ import { deskCount, deskCursor, deskQueue } from '../../src/lib/server/review/qu
 import { deliveredTo } from '../support/mail';
 import { unsubscribeUrl } from '../../src/lib/server/mail/unsubscribe';
 import { actions as unsubscribeActions } from '../../src/routes/unsubscribe/[token]/+page.server';
-import { actions as buildActions } from '../../src/routes/builds/[id]/+page.server';
+import { actions as buildActions } from '../../src/routes/builds/[id=id]/+page.server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';

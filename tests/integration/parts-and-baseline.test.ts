@@ -4,7 +4,7 @@ import * as builds from '../../src/lib/server/sheet/builds';
 import * as parts from '../../src/lib/server/sheet/parts';
 import { addPart, saveSetup, updatePart } from '../../src/lib/server/sheet/service';
 import { publishProblems } from '../../src/lib/server/sheet/build-service';
-import { PUT as partPut } from '../../src/routes/api/builds/[id]/parts/[partId]/+server';
+import { PUT as partPut } from '../../src/routes/api/builds/[id=id]/parts/[partId=id]/+server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
 import { FIXTURE_SETUP } from '../support/sheet-fixtures';

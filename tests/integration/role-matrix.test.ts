@@ -25,8 +25,12 @@ const pageFiles = import.meta.glob<{ actions?: Record<string, Handler> }>(
 	'../../src/routes/**/+page.server.ts'
 );
 const MUTATING = ['POST', 'PUT', 'PATCH', 'DELETE'];
+// Route ids are listed without their param matchers: `/builds/[id=id]` is `/builds/[id]` here.
 const routeOf = (file: string) =>
-	file.replace('../../src/routes', '').replace(/\/\+(page\.)?server\.ts$/, '') || '/';
+	file
+		.replace('../../src/routes', '')
+		.replace(/\/\+(page\.)?server\.ts$/, '')
+		.replace(/\[(\w+)=\w+\]/g, '[$1]') || '/';
 
 async function discover() {
 	const found = new Map<string, Handler>();

@@ -1,8 +1,11 @@
+import { AsyncLocalStorage } from 'node:async_hooks';
 import { QueryTypes } from 'sequelize';
 import { expect, vi } from 'vitest';
 import { db } from '../../src/lib/server/db/connection';
 
 const WRITE = /^\s*(INSERT|UPDATE|DELETE|REPLACE)\b/i;
+// Only the change's own writes count: a mail sweep left running by an earlier step does not.
+const inChange = new AsyncLocalStorage<true>();
 // Background work may deliver queued mail at any moment; only how many letters exist is compared.
 const COUNTED_ONLY = new Set(['mail_queue', 'schema_migrations']);
 
@@ -44,12 +47,14 @@ export async function expectAllOrNothing(change: () => Promise<unknown>): Promis
 	let writes = 0;
 	const spy = vi.spyOn(s, 'query').mockImplementation(((sql: unknown, ...rest: unknown[]) => {
 		const text = typeof sql === 'string' ? sql : String((sql as { query?: string })?.query ?? '');
-		if (WRITE.test(text) && ++writes === 2)
+		if (inChange.getStore() && WRITE.test(text) && ++writes === 2)
 			return Promise.reject(new Error('injected failure after the first write'));
 		return (real as (...a: unknown[]) => Promise<unknown>)(sql, ...rest);
 	}) as never);
 	try {
-		await expect(change()).rejects.toThrow('injected failure after the first write');
+		await expect(inChange.run(true, change)).rejects.toThrow(
+			'injected failure after the first write'
+		);
 	} finally {
 		spy.mockRestore();
 	}

@@ -42,15 +42,9 @@ export async function editBuild(event: RequestEvent, id: number) {
 	return { build, me };
 }
 
-export const idParam = (raw: string) => {
-	const n = Number(raw);
-	if (!Number.isInteger(n) || n <= 0) error(404, 'No such build.');
-	return n;
-};
-
 /** A setup of a build the signed-in member may change, from `params.id` and `params.setupId`. */
 export async function editSetup(event: RequestEvent & { params: { id: string; setupId: string } }) {
-	const { build } = await editBuild(event, idParam(event.params.id));
+	const { build } = await editBuild(event, Number(event.params.id));
 	const setup = await setups.read(build.id, Number(event.params.setupId));
 	if (!setup) error(404, 'No such setup.');
 	return { build, setup };
@@ -58,7 +52,7 @@ export async function editSetup(event: RequestEvent & { params: { id: string; se
 
 /** A run of a build the signed-in member may change, from `params.id` and `params.runId`. */
 export async function editRun(event: RequestEvent & { params: { id: string; runId: string } }) {
-	const { build } = await editBuild(event, idParam(event.params.id));
+	const { build } = await editBuild(event, Number(event.params.id));
 	const run = await runs.read(build.id, Number(event.params.runId));
 	if (!run) error(404, 'No such run.');
 	return { build, run };
@@ -66,7 +60,7 @@ export async function editRun(event: RequestEvent & { params: { id: string; runI
 
 /** A part of a build the signed-in member may change, from `params.id` and `params.partId`. */
 export async function editPart(event: RequestEvent & { params: { id: string; partId: string } }) {
-	const { build } = await editBuild(event, idParam(event.params.id));
+	const { build } = await editBuild(event, Number(event.params.id));
 	const part = await parts.read(build.id, Number(event.params.partId));
 	if (!part) error(404, 'No such part.');
 	return { build, part };
