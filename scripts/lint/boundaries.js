@@ -25,8 +25,8 @@ export const MAY_IMPORT = {
 };
 
 // Loose files at the root of lib/server: env (anyone), the guard (access checks: routes, the
-// API adapter and the sheet's access module), the JSON API adapter (routes only).
-const GUARD_USERS = new Set(['sheet']);
+// API adapter and the access modules of sheet and shops), the JSON API adapter (routes only).
+const GUARD_USERS = new Set(['sheet', 'shops']);
 
 const FOLDERS = Object.keys(MAY_IMPORT);
 const alt = (names) => names.join('|');

@@ -12,6 +12,7 @@ import { clock } from '$lib/clock';
 import { requireRole } from '$lib/server/guard';
 import { liftSuspension, suspendUser } from '$lib/server/review/desk';
 import { parseForm } from '$lib/server/web/plain-form';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -30,7 +31,7 @@ export const load: PageServerLoad = async (event) => {
 
 const failed = (message: string, userId = '') => fail(400, { admin: { userId, message } });
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	role: async (event) => {
 		const me = requireRole(event, 'admin');
 		const form = await parseForm(event.request, roleChangeSchema);
@@ -59,4 +60,4 @@ export const actions: Actions = {
 		await liftSuspension(me, form.data.userId, 'lifted from the admin table', clock());
 		return { admin: { userId: form.data.userId, message: 'Suspension lifted and logged.' } };
 	}
-};
+});

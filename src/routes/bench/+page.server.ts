@@ -6,6 +6,7 @@ import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
 import { unitsFor } from '$lib/server/sheet/units';
 import { acceptHandover, handoversFor } from '$lib/server/shops/transfers';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -29,7 +30,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	acceptHandover: async (event) => {
 		const me = requireUser(event);
 		const form = await parseForm(event.request, transferRefSchema);
@@ -38,4 +39,4 @@ export const actions: Actions = {
 		if (!r.ok) return fail(409, { handover: { message: 'That offer is no longer open.' } });
 		redirect(303, `/builds/${r.handover.buildId}`);
 	}
-};
+});

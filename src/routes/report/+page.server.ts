@@ -8,6 +8,7 @@ import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
 import { requireItem } from '$lib/server/review/items';
 import { fileReport } from '$lib/server/review/reports';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Only same-site paths, so the form's "back" link can never lead off Squishline. */
@@ -30,7 +31,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	default: async (event) => {
 		const me = requireUser(event);
 		const form = await superValidate(event.request, zod4(reportSchema));
@@ -58,4 +59,4 @@ export const actions: Actions = {
 				: 'Thank you. The review desk will look at it; one report never takes anything down by itself.'
 		);
 	}
-};
+});

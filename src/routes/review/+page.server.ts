@@ -10,6 +10,7 @@ import { decide, MAILED, NEEDS_REASON } from '$lib/server/review/desk';
 import { deskCount, deskCursor, deskQueue } from '$lib/server/review/queue';
 import { parseForm } from '$lib/server/web/plain-form';
 import { LOG_LABEL } from '$lib/review/kinds';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 const PAGE = 40;
@@ -29,7 +30,7 @@ export const load: PageServerLoad = async (event) => {
 	return { queue, waiting, order, paged: Boolean(after), next, notes, form };
 };
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	note: async (event) => {
 		const me = requireRole(event, 'moderator');
 		const form = await superValidate(event.request, zod4(deskNoteSchema));
@@ -60,4 +61,4 @@ export const actions: Actions = {
 			}
 		};
 	}
-};
+});

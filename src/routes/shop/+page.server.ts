@@ -1,5 +1,5 @@
 import { Failure } from '$lib/failure';
-import { error, fail, isHttpError, redirect } from '@sveltejs/kit';
+import { error, fail, redirect } from '@sveltejs/kit';
 import { roleAllows } from '$lib/roles';
 import {
 	linkRequestSchema,
@@ -10,28 +10,19 @@ import {
 	transferRefSchema,
 	transferSchema
 } from '$lib/schemas/shops';
-import type { CurrentUser } from '$lib/server/auth/current-user';
 import { clock } from '$lib/clock';
 import * as builds from '$lib/server/sheet/builds';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
-import {} from '$lib/server/sheet/photos';
 import { linksOfShop, requestLink } from '$lib/server/shops/links';
 import { removeLogo, setLogo } from '$lib/server/shops/logo';
 import { messagesOf, replyToMessage } from '$lib/server/shops/messages';
-import { requireOwnShop, requireShop, saveShop, shopOf, shopView } from '$lib/server/shops/pages';
+import { actingFor, requireOwnShop, shopDesk } from '$lib/server/shops/access';
+import { saveShop, shopView } from '$lib/server/shops/pages';
 import { inviteStaff, removeStaff, staffOf } from '$lib/server/shops/staff';
 import { handoversOfShop, offerHandover, withdrawHandover } from '$lib/server/shops/transfers';
-import type { Actions, PageServerLoad, RequestEvent } from './$types';
-
-/** Who may open the shop desk: shop accounts (to create their page) and accepted staff. */
-async function deskUser(event: RequestEvent) {
-	const me = requireUser(event);
-	const shop = await shopOf(me);
-	if (!shop && !roleAllows(me.role, 'shop'))
-		error(403, 'The shop desk is for shop accounts and their staff.');
-	return { me, shop };
-}
+import { forPages } from '$lib/server/web/page-failure';
+import type { Actions, PageServerLoad } from './$types';
 
 const done = (anchor: string) => redirect(303, `/shop#${anchor}`);
 
@@ -41,14 +32,14 @@ async function kept<T>(slot: string, values: Record<string, string>, step: () =>
 		await step();
 		return null;
 	} catch (e) {
-		if (isHttpError(e) && e.status < 500)
-			return fail(e.status, { [slot]: { values, message: e.body.message } });
+		if (e instanceof Failure && e.status < 500)
+			return fail(e.status, { [slot]: { values, message: e.message } });
 		throw e;
 	}
 }
 
 export const load: PageServerLoad = async (event) => {
-	const { me, shop } = await deskUser(event);
+	const { me, shop } = await shopDesk(event);
 	if (!shop) return { shop: null, owner: true };
 	const [staff, links, handovers, messages, own] = await Promise.all([
 		staffOf(shop.id),
@@ -74,14 +65,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-async function acting(
-	event: RequestEvent
-): Promise<{ me: CurrentUser; shop: Awaited<ReturnType<typeof requireShop>> }> {
-	const me = requireUser(event);
-	return { me, shop: await requireShop(me) };
-}
-
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	save: async (event) => {
 		const me = requireUser(event);
 		if (!roleAllows(me.role, 'shop')) error(403, 'This needs the shop role.');
@@ -130,7 +114,7 @@ export const actions: Actions = {
 		done('staff');
 	},
 	requestLink: async (event) => {
-		const { me, shop } = await acting(event);
+		const { me, shop } = await actingFor(event);
 		const form = await parseForm(event.request, linkRequestSchema);
 		if (!form.ok) return fail(400, { link: { values: form.values, message: form.message } });
 		const refused = await kept('link', form.values, () =>
@@ -140,7 +124,7 @@ export const actions: Actions = {
 		done('links');
 	},
 	offerHandover: async (event) => {
-		const { me, shop } = await acting(event);
+		const { me, shop } = await actingFor(event);
 		const form = await parseForm(event.request, transferSchema);
 		if (!form.ok) return fail(400, { handover: { values: form.values, message: form.message } });
 		const refused = await kept('handover', form.values, () =>
@@ -150,14 +134,14 @@ export const actions: Actions = {
 		done('handovers');
 	},
 	withdrawHandover: async (event) => {
-		const { me, shop } = await acting(event);
+		const { me, shop } = await actingFor(event);
 		const form = await parseForm(event.request, transferRefSchema);
 		if (!form.ok) return fail(400, { handover: { values: {}, message: form.message } });
 		await withdrawHandover(me, shop, form.data.transferId, clock());
 		done('handovers');
 	},
 	reply: async (event) => {
-		const { me, shop } = await acting(event);
+		const { me, shop } = await actingFor(event);
 		const form = await parseForm(event.request, replySchema);
 		if (!form.ok)
 			return fail(400, {
@@ -170,4 +154,4 @@ export const actions: Actions = {
 		await replyToMessage(me, shop, form.data.messageId, form.data.reply, clock());
 		done('messages');
 	}
-};
+});

@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import { models } from '../db/models';
 import type { CurrentUser } from '../auth/current-user';
 import * as log from '../review/log';
@@ -21,7 +21,10 @@ export async function deleteAccount(me: CurrentUser, mode: DeleteMode, now: Date
 		const { Build, Shop, ReviewCase, User } = models();
 		// Someone must be left to give roles and check shops.
 		if (me.role === 'admin' && (await User.count({ where: { role: 'admin' } })) <= 1)
-			error(409, 'You are the only admin. Make someone else an admin before you leave.');
+			throw new Failure(
+				409,
+				'You are the only admin. Make someone else an admin before you leave.'
+			);
 		const own = await Build.findAll({
 			where: { ownerId: me.id },
 			attributes: ['id', 'publication']

@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import { Op, type Order, type WhereOptions } from 'sequelize';
 import { activeSuspension } from '../../review/suspension';
 import { ROLES, type Role } from '../../roles';
@@ -70,8 +70,8 @@ export async function listUsers(f: UserFilter, now: Date) {
 export async function changeRole(me: CurrentUser, userId: string, role: Role, now: Date) {
 	return inTransaction(async () => {
 		const u = await users.read(userId);
-		if (!u) error(404, 'No such account.');
-		if (u.id === me.id) error(403, 'Ask another admin to change your own role.');
+		if (!u) throw new Failure(404, 'No such account.');
+		if (u.id === me.id) throw new Failure(403, 'Ask another admin to change your own role.');
 		if (u.role === role) return;
 		await users.update(u.id, { role });
 		await log.append({
@@ -87,7 +87,7 @@ export async function changeRole(me: CurrentUser, userId: string, role: Role, no
 /** Signs an account out on every device (a stolen session, a shared computer); logged. */
 export async function endSessionsOf(me: CurrentUser, userId: string, now: Date) {
 	const u = await users.read(userId);
-	if (!u) error(404, 'No such account.');
+	if (!u) throw new Failure(404, 'No such account.');
 	// Both or neither: an admin's step is never taken without its line in the log.
 	await inTransaction(async (t) => {
 		await endAllSessions(u.id, t);

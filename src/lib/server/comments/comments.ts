@@ -1,5 +1,4 @@
 import { Failure } from '../../failure';
-import { error } from '@sveltejs/kit';
 import { Op } from 'sequelize';
 import { roleAllows } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
@@ -117,17 +116,17 @@ export async function createComment(
 ): Promise<Comment> {
 	return inTransaction(async () => {
 		const { Comment, Setup } = models();
-		if (!open(b)) error(404, 'No such build.');
+		if (!open(b)) throw new Failure(404, 'No such build.');
 		if (input.setupId) {
 			const s = await Setup.findOne({ where: { id: input.setupId, buildId: b.id } });
-			if (!s) error(400, 'That setup is not part of this build.');
+			if (!s) throw new Failure(400, 'That setup is not part of this build.');
 		}
 		let parentId: number | null = null;
 		let setupId = input.setupId ?? null;
 		if (input.parentId) {
 			const parent = await Comment.findOne({ where: { id: input.parentId, buildId: b.id } });
 			if (!parent || parent.deletedAt || parent.moderation === 'hidden')
-				error(400, 'That comment cannot be replied to.');
+				throw new Failure(400, 'That comment cannot be replied to.');
 			// One level of replies: answering a reply joins its parent's thread.
 			parentId = parent.parentId ?? parent.id;
 			setupId = parent.setupId;
@@ -152,7 +151,7 @@ export async function createComment(
 /** The comment if it is the caller's; 404 otherwise, so others learn nothing about it. */
 export async function ownComment(me: CurrentUser, commentId: number) {
 	const c = await models().Comment.findByPk(commentId);
-	if (!c || c.authorId !== me.id) error(404, 'No such comment of yours.');
+	if (!c || c.authorId !== me.id) throw new Failure(404, 'No such comment of yours.');
 	return c;
 }
 
@@ -163,7 +162,7 @@ export async function editComment(me: CurrentUser, commentId: number, body: stri
 			where: { parentId: c.id, deletedAt: { [Op.is]: null } }
 		});
 		if (!(await editable(c, replies)).edit)
-			error(409, 'Someone has replied, so this comment can no longer be changed.');
+			throw new Failure(409, 'Someone has replied, so this comment can no longer be changed.');
 		await c.update({ body, editedAt: now, updatedAt: now });
 		await scanText({ type: 'comment', id: c.id }, me.id, body, now);
 		return c;

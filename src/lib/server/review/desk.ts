@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import { ITEM_LABEL, type DeskAction } from '../../review/kinds';
 import { roleAllows } from '../../roles';
 import type { CurrentUser } from '../auth/current-user';
@@ -55,11 +55,11 @@ export async function decide(
 	// The item, its case, the log line and the queued mail change together or not at all.
 	await inTransaction(async () => {
 		const c = await models().ReviewCase.findByPk(caseId);
-		if (!c) error(404, 'No such case.');
+		if (!c) throw new Failure(404, 'No such case.');
 		const ref: ItemRef = { type: c.itemType, id: c.itemId };
 		const item = await requireItem(ref);
 		if (NEEDS_REASON.includes(d.action) && !d.reason.trim())
-			error(400, 'Say why: the reason is shown or mailed to the author.');
+			throw new Failure(400, 'Say why: the reason is shown or mailed to the author.');
 		const entry = {
 			at: now,
 			actorId: me.id,
@@ -96,9 +96,13 @@ export async function decide(
  */
 export async function putBack(me: CurrentUser, ref: ItemRef, reason: string, now: Date) {
 	const item = await requireItem(ref);
-	if (!item.hidden) error(409, 'This item is not taken down.');
+	if (!item.hidden) throw new Failure(409, 'This item is not taken down.');
 	const why = reason.trim();
-	if (!why) error(400, 'Say why it goes back up: the reason is logged and mailed to the author.');
+	if (!why)
+		throw new Failure(
+			400,
+			'Say why it goes back up: the reason is logged and mailed to the author.'
+		);
 	await inTransaction(async () => {
 		await setHidden(ref, null);
 		await models().ReviewCase.update(
@@ -126,11 +130,11 @@ async function suspendAuthor(
 	ref: ItemRef | null
 ) {
 	const author = authorId ? await users.read(authorId) : null;
-	if (!author) error(404, 'The author has no account any more.');
+	if (!author) throw new Failure(404, 'The author has no account any more.');
 	// Only an admin can suspend staff, and nobody suspends themselves.
-	if (author.id === me.id) error(403, 'You cannot suspend your own account.');
+	if (author.id === me.id) throw new Failure(403, 'You cannot suspend your own account.');
 	if (author.role !== 'member' && author.role !== 'shop' && !roleAllows(me.role, 'admin'))
-		error(403, 'Only an admin can suspend a moderator or an admin.');
+		throw new Failure(403, 'Only an admin can suspend a moderator or an admin.');
 	const days = d.days ?? 0;
 	const until = days > 0 ? new Date(now.getTime() + days * 86_400_000) : null;
 	await users.update(author.id, {
@@ -163,7 +167,7 @@ export async function suspendUser(
 	days: number,
 	now: Date
 ) {
-	if (!reason.trim()) error(400, 'Say why: the reason is mailed to the member.');
+	if (!reason.trim()) throw new Failure(400, 'Say why: the reason is mailed to the member.');
 	await inTransaction(() =>
 		suspendAuthor(me, userId, { action: 'suspend', reason, days }, now, null)
 	);
@@ -171,7 +175,7 @@ export async function suspendUser(
 
 export async function liftSuspension(me: CurrentUser, userId: string, reason: string, now: Date) {
 	const u = await users.read(userId);
-	if (!u) error(404, 'No such account.');
+	if (!u) throw new Failure(404, 'No such account.');
 	await inTransaction(async () => {
 		await users.update(userId, { suspendedAt: null, suspendedUntil: null, suspendedReason: null });
 		await log.append({
@@ -192,7 +196,7 @@ export type SecondLook = { ok: true } | { ok: false; message: string };
  */
 export async function askSecondLook(me: CurrentUser, ref: ItemRef, now: Date): Promise<SecondLook> {
 	const item = await describeItem(ref);
-	if (!item || item.authorId !== me.id) error(404, 'No such item.');
+	if (!item || item.authorId !== me.id) throw new Failure(404, 'No such item.');
 	const c = await readCase(ref);
 	if (!c || !item.hidden) return { ok: false, message: 'This is not taken down.' };
 	if (c.secondLook !== 'none')

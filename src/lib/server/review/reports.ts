@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import { UniqueConstraintError } from 'sequelize';
 import { REPORT_NOTE_MAX, type ReportReason } from '../../review/kinds';
 import type { CurrentUser } from '../auth/current-user';
@@ -22,7 +22,7 @@ export async function fileReport(
 	return inTransaction(async () => {
 		const item = await requireItem(ref);
 		// Only what the reporter can see can be reported; a draft's existence stays hidden.
-		if (!item.open && item.authorId !== me.id) error(404, 'No such item.');
+		if (!item.open && item.authorId !== me.id) throw new Failure(404, 'No such item.');
 		try {
 			await models().Report.create({
 				itemType: ref.type,

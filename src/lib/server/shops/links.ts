@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import type { CurrentUser } from '../auth/current-user';
 import { models, type Shop, type ShopLink } from '../db/models';
 import * as builds from '../sheet/builds';
@@ -81,13 +81,13 @@ export async function requestLink(
 		const { ShopLink } = models();
 		const b = await builds.read(input.buildId);
 		const visible = b && b.publication === 'published' && b.moderation === 'visible';
-		if (!b || (!visible && b.ownerId !== me.id)) error(404, 'No such build.');
-		if (!b.ownerId) error(409, 'That build has no owner any more to ask.');
+		if (!b || (!visible && b.ownerId !== me.id)) throw new Failure(404, 'No such build.');
+		if (!b.ownerId) throw new Failure(409, 'That build has no owner any more to ask.');
 		const open = await ShopLink.findOne({
 			where: { buildId: b.id, shopId: shop.id, state: ['requested', 'approved'] }
 		});
 		if (open)
-			error(
+			throw new Failure(
 				409,
 				open.state === 'approved'
 					? 'Your shop is already named on that build.'
@@ -197,7 +197,8 @@ export async function decideLink(
 		const l = await ShopLink.findByPk(id);
 		const b = l && (await builds.read(l.buildId));
 		if (!l || !b) return { ok: false, problem: 'used' };
-		if ('me' in by && b.ownerId !== by.me.id) error(404, 'No such request on your builds.');
+		if ('me' in by && b.ownerId !== by.me.id)
+			throw new Failure(404, 'No such request on your builds.');
 		// The state check and the change in one statement, so two clicks cannot both count.
 		const [changed] = await ShopLink.update(
 			{ state: d === 'approve' ? 'approved' : 'declined', decidedAt: now },
@@ -222,9 +223,9 @@ export async function unlink(me: CurrentUser, linkId: number, now: Date) {
 		const { ShopLink } = models();
 		const l = await ShopLink.findByPk(linkId);
 		const b = l && (await builds.read(l.buildId));
-		if (!l || !b || b.ownerId !== me.id) error(404, 'No such link on your builds.');
+		if (!l || !b || b.ownerId !== me.id) throw new Failure(404, 'No such link on your builds.');
 		if (l.state !== 'approved')
-			error(409, 'That link is not shown, so there is nothing to remove.');
+			throw new Failure(409, 'That link is not shown, so there is nothing to remove.');
 		await l.update({ state: 'unlinked', decidedAt: now });
 		await log.append({
 			at: now,

@@ -1,5 +1,4 @@
 import { Failure } from '../../failure';
-import { error } from '@sveltejs/kit';
 import type { CurrentUser } from '../auth/current-user';
 import { messagesByAccount, messagesByAddress, spend, waitText } from '../auth/limits';
 import { models, type Shop } from '../db/models';
@@ -20,7 +19,7 @@ export async function sendMessage(
 	now: Date
 ) {
 	return inTransaction(async () => {
-		if (shop.ownerId === me.id) error(400, 'That is your own shop.');
+		if (shop.ownerId === me.id) throw new Failure(400, 'That is your own shop.');
 		const r = await spend([
 			[messagesByAccount, me.id],
 			[messagesByAddress, address]
@@ -93,8 +92,9 @@ export async function replyToMessage(
 	return inTransaction(async () => {
 		const { ShopMessage } = models();
 		const m = await ShopMessage.findOne({ where: { id: messageId, shopId: shop.id } });
-		if (!m) error(404, 'No such message to your shop.');
-		if (m.repliedAt) error(409, 'This message has its reply; write to the sender directly now.');
+		if (!m) throw new Failure(404, 'No such message to your shop.');
+		if (m.repliedAt)
+			throw new Failure(409, 'This message has its reply; write to the sender directly now.');
 		await m.update({ reply, repliedAt: now, repliedBy: me.id, updatedAt: now });
 		const sender = await users.read(m.senderId);
 		if (sender)

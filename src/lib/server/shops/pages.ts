@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import type { z } from 'zod';
 import { roleAllows } from '../../roles';
 import type { shopSchema } from '../../schemas/shops';
@@ -13,16 +13,6 @@ export type ShopInput = z.output<typeof shopSchema>;
 
 export async function readShop(id: number): Promise<Shop | null> {
 	return models().Shop.findByPk(id);
-}
-
-/** A shop page for readers: 404 when hidden by the desk, unless the reader is its owner or staff. */
-export async function viewShop(id: number, me: CurrentUser | null) {
-	const shop = await readShop(id);
-	if (!shop) error(404, 'No such shop.');
-	const acting = me ? await actsFor(me, shop) : false;
-	const staff = me !== null && roleAllows(me.role, 'moderator');
-	if (shop.moderation === 'hidden' && !acting && !staff) error(404, 'No such shop.');
-	return { shop, acting, owner: me?.id === shop.ownerId };
 }
 
 /** Whether the account acts for the shop: its owner, or staff who accepted the invitation. */
@@ -53,25 +43,10 @@ export async function shopOf(me: CurrentUser): Promise<Shop | null> {
 	return staff ? Shop.findByPk(staff.shopId) : null;
 }
 
-/** The caller's shop for acting on it; 403 when they act for none. */
-export async function requireShop(me: CurrentUser): Promise<Shop> {
-	const shop = await shopOf(me);
-	if (!shop) error(403, 'This needs a shop page: you do not act for a shop.');
-	return shop;
-}
-
-/** The caller's own shop page, for what only its owner does (the page, staff, logo). */
-export async function requireOwnShop(me: CurrentUser): Promise<Shop> {
-	if (!roleAllows(me.role, 'shop')) error(403, 'This needs the shop role.');
-	const shop = await models().Shop.findOne({ where: { ownerId: me.id } });
-	if (!shop) error(404, 'Create your shop page first.');
-	return shop;
-}
-
 /** Creates or updates the owner's shop page. */
 export async function saveShop(me: CurrentUser, input: ShopInput): Promise<Shop> {
 	return inTransaction(async () => {
-		if (!roleAllows(me.role, 'shop')) error(403, 'This needs the shop role.');
+		if (!roleAllows(me.role, 'shop')) throw new Failure(403, 'This needs the shop role.');
 		const { Shop } = models();
 		const existing = await Shop.findOne({ where: { ownerId: me.id } });
 		if (existing) return existing.update(input);
@@ -118,9 +93,9 @@ export async function setVerified(
 	now: Date
 ) {
 	return inTransaction(async () => {
-		if (!roleAllows(me.role, 'admin')) error(403, 'Only an admin verifies shops.');
+		if (!roleAllows(me.role, 'admin')) throw new Failure(403, 'Only an admin verifies shops.');
 		const shop = await readShop(shopId);
-		if (!shop) error(404, 'No such shop.');
+		if (!shop) throw new Failure(404, 'No such shop.');
 		await shop.update({ verifiedAt: verified ? now : null });
 		await log.append({
 			at: now,

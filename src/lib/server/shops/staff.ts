@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import type { CurrentUser } from '../auth/current-user';
 import { models, type Shop } from '../db/models';
 import { normaliseEmail } from '../auth/users';
@@ -19,12 +19,12 @@ export async function inviteStaff(me: CurrentUser, shop: Shop, email: string, no
 	return inTransaction(async () => {
 		const { ShopStaff } = models();
 		const address = normaliseEmail(email);
-		if (address === normaliseEmail(me.email)) error(400, 'You are the owner already.');
+		if (address === normaliseEmail(me.email)) throw new Failure(400, 'You are the owner already.');
 		const [row] = await ShopStaff.findOrCreate({
 			where: { shopId: shop.id, email: address },
 			defaults: { shopId: shop.id, email: address }
 		});
-		if (row.acceptedAt) error(409, 'That address is already on your staff.');
+		if (row.acceptedAt) throw new Failure(409, 'That address is already on your staff.');
 		await send(
 			staffInvite({
 				to: address,
@@ -46,7 +46,7 @@ export async function inviteStaff(me: CurrentUser, shop: Shop, email: string, no
 export async function removeStaff(me: CurrentUser, shop: Shop, staffId: number, now: Date) {
 	return inTransaction(async () => {
 		const n = await models().ShopStaff.destroy({ where: { id: staffId, shopId: shop.id } });
-		if (n !== 1) error(404, 'No such person on your staff.');
+		if (n !== 1) throw new Failure(404, 'No such person on your staff.');
 		await log.append({
 			at: now,
 			actorId: me.id,
@@ -69,7 +69,7 @@ export async function joinStaff(me: CurrentUser, token: string, now: Date): Prom
 		const row = await ShopStaff.findByPk(c.payload.s);
 		if (!row || row.email !== c.payload.e) return { ok: false, problem: 'used' };
 		if (row.email !== normaliseEmail(me.email))
-			error(403, `This invitation is for ${row.email}; sign in with that address.`);
+			throw new Failure(403, `This invitation is for ${row.email}; sign in with that address.`);
 		const [n] = await ShopStaff.update(
 			{ userId: me.id, acceptedAt: now },
 			{ where: { id: row.id, acceptedAt: null } }

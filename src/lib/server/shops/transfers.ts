@@ -1,4 +1,4 @@
-import { error } from '@sveltejs/kit';
+import { Failure } from '../../failure';
 import type { CurrentUser } from '../auth/current-user';
 import { inTransaction } from '../db/transaction';
 import { models, type BuildTransfer, type Shop } from '../db/models';
@@ -74,11 +74,14 @@ export async function offerHandover(
 		const b = await builds.read(input.buildId);
 		const ours = b && (b.ownerId === shop.ownerId || b.ownerId === me.id);
 		if (!b || !ours || !(await handsOver(shop, b.ownerId)))
-			error(404, 'No such build sheet of your shop.');
+			throw new Failure(404, 'No such build sheet of your shop.');
 		const email = normaliseEmail(input.email);
 		const pending = await BuildTransfer.findOne({ where: { buildId: b.id, state: 'pending' } });
 		if (pending)
-			error(409, `That sheet is already offered to ${pending.toEmail}. Withdraw that first.`);
+			throw new Failure(
+				409,
+				`That sheet is already offered to ${pending.toEmail}. Withdraw that first.`
+			);
 		const t = await BuildTransfer.create({
 			buildId: b.id,
 			shopId: shop.id,
@@ -112,7 +115,7 @@ export async function withdrawHandover(me: CurrentUser, shop: Shop, transferId: 
 			{ state: 'cancelled', decidedAt: now },
 			{ where: { id: transferId, shopId: shop.id, state: 'pending' } }
 		);
-		if (n !== 1) error(409, 'That offer is not open any more.');
+		if (n !== 1) throw new Failure(409, 'That offer is not open any more.');
 		const t = (await BuildTransfer.findByPk(transferId))!;
 		await log.append({
 			at: now,
@@ -176,7 +179,10 @@ export async function acceptHandover(
 		const t = await BuildTransfer.findByPk(id);
 		if (!t) return { ok: false, problem: 'used' };
 		if (t.toEmail !== normaliseEmail(me.email))
-			error(403, `This sheet was offered to ${t.toEmail}; sign in with that address to accept it.`);
+			throw new Failure(
+				403,
+				`This sheet was offered to ${t.toEmail}; sign in with that address to accept it.`
+			);
 		const shop = await Shop.findByPk(t.shopId);
 		const from = await models().Build.findByPk(t.buildId, { attributes: ['ownerId'] });
 		if (!shop || !from || !(await handsOver(shop, from.ownerId)))

@@ -5,6 +5,7 @@ import { clock } from '$lib/clock';
 import { requireRole } from '$lib/server/guard';
 import { setVerified, shopsForCheck } from '$lib/server/shops/pages';
 import { parseForm } from '$lib/server/web/plain-form';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -16,7 +17,7 @@ export const load: PageServerLoad = async (event) => {
 
 const decision = shopRefSchema.extend({ note: z.string().trim().max(300).default('') });
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	verify: async (event) => {
 		const me = requireRole(event, 'admin');
 		const form = await parseForm(event.request, decision);
@@ -32,4 +33,4 @@ export const actions: Actions = {
 		await setVerified(me, form.data.shopId, false, form.data.note, clock());
 		return { message: 'Verification withdrawn and logged.' };
 	}
-};
+});

@@ -27,6 +27,7 @@ import { readBuild } from '$lib/server/sheet/access';
 import { unitsFor } from '$lib/server/sheet/units';
 import { buildView } from '$lib/server/sheet/view';
 import { stepsOf } from '$lib/server/stats/change-effects';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -94,7 +95,7 @@ const back = (buildId: number, anchor: string) => redirect(303, `/builds/${build
 
 const decisionSchema = linkRefSchema.extend({ decision: z.enum(['approve', 'decline']) });
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	decideLink: async (event) => {
 		const { me, build } = await target(event);
 		const form = await parseForm(event.request, decisionSchema);
@@ -153,4 +154,4 @@ export const actions: Actions = {
 			buildId: build.id
 		};
 	}
-};
+});

@@ -1,4 +1,5 @@
-import { fail, isHttpError, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
+import { Failure } from '$lib/failure';
 import { accountDeleteSchema } from '$lib/schemas/shops';
 import { deleteAccount } from '$lib/server/accounts/deletion';
 import { clock } from '$lib/clock';
@@ -6,6 +7,7 @@ import * as builds from '$lib/server/sheet/builds';
 import { ownShop } from '$lib/server/shops/pages';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -20,7 +22,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	// A suspended member may still leave: deleting is not posting.
 	default: async (event) => {
 		const me = requireUser(event, { evenSuspended: true });
@@ -29,8 +31,8 @@ export const actions: Actions = {
 		try {
 			await deleteAccount(me, form.data.mode, clock());
 		} catch (e) {
-			if (isHttpError(e) && e.status === 409)
-				return fail(409, { values: form.values, message: e.body.message });
+			if (e instanceof Failure && e.status === 409)
+				return fail(409, { values: form.values, message: e.message });
 			throw e;
 		}
 		// The session cookie names Auth.js uses over plain HTTP and over HTTPS.
@@ -38,4 +40,4 @@ export const actions: Actions = {
 			event.cookies.delete(name, { path: '/' });
 		redirect(303, '/?account=deleted');
 	}
-};
+});

@@ -5,8 +5,10 @@ import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
 import { parseForm } from '$lib/server/web/plain-form';
 import { sendMessage } from '$lib/server/shops/messages';
-import { linkedBuilds, shopView, viewShop } from '$lib/server/shops/pages';
+import { viewShop } from '$lib/server/shops/access';
+import { linkedBuilds, shopView } from '$lib/server/shops/pages';
 import { summarise } from '$lib/shops/summary';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -24,7 +26,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	contact: async (event) => {
 		const me = requireUser(event);
 		const { shop, acting } = await viewShop(Number(event.params.id), me);
@@ -42,4 +44,4 @@ export const actions: Actions = {
 		}
 		return { sent: true };
 	}
-};
+});

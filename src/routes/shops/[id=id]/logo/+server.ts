@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { viewShop } from '$lib/server/shops/pages';
+import { viewShop } from '$lib/server/shops/access';
 import { getObjectForReader } from '$lib/server/storage/objects';
 import type { RequestHandler } from './$types';
 

@@ -8,6 +8,7 @@ import { putBack } from '$lib/server/review/desk';
 import { requireItem, type ItemRef } from '$lib/server/review/items';
 import * as log from '$lib/server/review/log';
 import { parseForm } from '$lib/server/web/plain-form';
+import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
 // One item's page on the desk: what it is, whether it is down and why, everything the desk did
@@ -42,7 +43,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-export const actions: Actions = {
+export const actions: Actions = forPages({
 	putBack: async (event) => {
 		const me = requireRole(event, 'moderator');
 		const ref = refOf(event.params);
@@ -51,4 +52,4 @@ export const actions: Actions = {
 		await putBack(me, ref, form.data.reason, clock());
 		redirect(303, `/review/items/${ref.type}/${ref.id}?done=restore`);
 	}
-};
+});
