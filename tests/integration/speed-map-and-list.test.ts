@@ -6,7 +6,7 @@ import { LIST_TUNING, listBuilds } from '../../src/lib/server/search/build-list'
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { MAX_POINTS, speedMap, xSpread } from '../../src/lib/server/stats/speed-map';
-import { speedMapQuerySchema } from '../../src/lib/stats/schema';
+import { speedMapQuerySchema } from '../../src/lib/schemas/stats';
 
 // Against the seeded demo sheets (invented, fixed seed) plus whatever earlier test files added.
 afterAll(closeDb);

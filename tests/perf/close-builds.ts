@@ -2,7 +2,7 @@
 // (every candidate row into Node, scored and sorted there) for comparison.
 import { QueryTypes } from 'sequelize';
 import { CAP, TERMS } from '../../src/lib/close/weights';
-import { closeQuerySchema } from '../../src/lib/close/schema';
+import { closeQuerySchema } from '../../src/lib/schemas/close';
 import { searchClose } from '../../src/lib/server/close/search';
 import { targetFrom } from '../../src/lib/server/close/service';
 import { db } from '../../src/lib/server/db/connection';

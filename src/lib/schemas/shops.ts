@@ -58,3 +58,13 @@ export const adminSuspendSchema = z.object({
 });
 export const userRefSchema = z.object({ userId: z.string().uuid() });
 export const shopRefSchema = z.object({ shopId: id });
+
+/** The owner's answer to a shop asking to be named on their build. */
+export const linkDecisionSchema = linkRefSchema.extend({
+	decision: z.enum(['approve', 'decline'])
+});
+
+/** An admin's check of a shop, with an optional note for the log. */
+export const shopCheckSchema = shopRefSchema.extend({
+	note: z.string().trim().max(300).default('')
+});

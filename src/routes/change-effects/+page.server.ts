@@ -1,7 +1,7 @@
 import { unitsFor } from '$lib/server/sheet/units';
 import { pairsFor, summarise } from '$lib/server/stats/change-effects';
 import type { ChangeKind } from '$lib/sheet/change-kinds';
-import { changeEffectsQuerySchema, paramsObject } from '$lib/stats/schema';
+import { changeEffectsQuerySchema, paramsObject } from '$lib/schemas/stats';
 import type { PageServerLoad } from './$types';
 
 // Public. Same data as GET /api/stats/change-effects; choosing a kind is a plain link (?kind=).

@@ -1,5 +1,5 @@
 import { searchClose } from '$lib/server/close/search';
-import { closeQuerySchema } from '$lib/close/schema';
+import { closeQuerySchema } from '$lib/schemas/close';
 import type { PageServerLoad } from './$types';
 
 // Public. The first answer is rendered on the server (works without JavaScript); the page then

@@ -1,7 +1,7 @@
 import { unitsFor } from '$lib/server/sheet/units';
 import { engineFamilies } from '$lib/server/stats/families';
 import { speedMap } from '$lib/server/stats/speed-map';
-import { paramsObject, speedMapQuerySchema } from '$lib/stats/schema';
+import { paramsObject, speedMapQuerySchema } from '$lib/schemas/stats';
 import type { PageServerLoad } from './$types';
 
 // Public. The first map is rendered here (so a shared link opens on it); the page then asks

@@ -1,4 +1,4 @@
-import type { CloseQuery } from '../../close/schema';
+import type { CloseQuery } from '../../schemas/close';
 import { closeBuilds, targetFrom, targetFromBuild, wouldGet } from './service';
 
 /** The close-builds answer for a query: shared by GET /api/builds/close and the page's first render. */

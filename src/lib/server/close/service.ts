@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { BAND, CAP, TERMS } from '../../close/weights';
 import { reasons, type Candidate, type Target } from '../../close/reasons';
-import type { CloseQuery } from '../../close/schema';
+import type { CloseQuery } from '../../schemas/close';
 import * as t from '../../tuning';
 import { EXHAUST_TYPES } from '../../sheet/fields';
 import { db } from '../db/connection';

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { versionSchema } from '../../schemas/sheet';
 import { PART_FIELDS, type Field } from '../../sheet/fields';
 import { schemaFor, toStored, type Mode } from '../../sheet/schema';
 import { parse } from '../../failure';
@@ -16,8 +16,7 @@ export function sheetBody(name: string, fields: Field[], body: unknown, mode: Mo
 	return toStored(fields, data, units);
 }
 
-export const versionOf = (body: unknown) =>
-	parse(z.object({ version: z.number().int().min(0) }), body).version;
+export const versionOf = (body: unknown) => parse(versionSchema, body).version;
 
 /** A part as JSON: like its form, with the setup it was fitted in as a number or null. */
 export function partBody(body: unknown) {

@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { EXHAUST_TYPES } from '../../sheet/fields';
-import { METHODS, SPEED_MAP_X, type SpeedMapQuery } from '../../stats/schema';
+import { METHODS, SPEED_MAP_X, type SpeedMapQuery } from '../../schemas/stats';
 import { db } from '../db/connection';
 
 // The speed map's data: best measured speed against one setup column, one mark per published build

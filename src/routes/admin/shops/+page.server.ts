@@ -1,6 +1,5 @@
 import { fail } from '@sveltejs/kit';
-import { z } from 'zod';
-import { shopRefSchema } from '$lib/schemas/shops';
+import { shopCheckSchema } from '$lib/schemas/shops';
 import { clock } from '$lib/clock';
 import { requireRole } from '$lib/server/guard';
 import { setVerified, shopsForCheck } from '$lib/server/shops/pages';
@@ -15,19 +14,17 @@ export const load: PageServerLoad = async (event) => {
 	return { show, sort, shops: await shopsForCheck({ show, sort }) };
 };
 
-const decision = shopRefSchema.extend({ note: z.string().trim().max(300).default('') });
-
 export const actions: Actions = forPages({
 	verify: async (event) => {
 		const me = requireRole(event, 'admin');
-		const form = await parseForm(event.request, decision);
+		const form = await parseForm(event.request, shopCheckSchema);
 		if (!form.ok) return fail(400, { message: form.message });
 		await setVerified(me, form.data.shopId, true, form.data.note, clock());
 		return { message: 'Stamped as a verified shop and logged.' };
 	},
 	unverify: async (event) => {
 		const me = requireRole(event, 'admin');
-		const form = await parseForm(event.request, decision);
+		const form = await parseForm(event.request, shopCheckSchema);
 		if (!form.ok) return fail(400, { message: form.message });
 		if (!form.data.note) return fail(400, { message: 'Say why the stamp is withdrawn.' });
 		await setVerified(me, form.data.shopId, false, form.data.note, clock());

@@ -21,8 +21,7 @@ import { pageStanding } from '$lib/server/review/standing';
 import { parseForm } from '$lib/server/web/plain-form';
 import { decideLink, pendingLinks, shownLinks, unlink } from '$lib/server/shops/links';
 import { shopOf } from '$lib/server/shops/pages';
-import { linkRefSchema } from '$lib/schemas/shops';
-import { z } from 'zod';
+import { linkDecisionSchema, linkRefSchema } from '$lib/schemas/shops';
 import { readBuild } from '$lib/server/sheet/access';
 import { unitsFor } from '$lib/server/sheet/units';
 import { buildView } from '$lib/server/sheet/view';
@@ -93,12 +92,10 @@ async function target(event: RequestEvent) {
 
 const back = (buildId: number, anchor: string) => redirect(303, `/builds/${buildId}#${anchor}`);
 
-const decisionSchema = linkRefSchema.extend({ decision: z.enum(['approve', 'decline']) });
-
 export const actions: Actions = forPages({
 	decideLink: async (event) => {
 		const { me, build } = await target(event);
-		const form = await parseForm(event.request, decisionSchema);
+		const form = await parseForm(event.request, linkDecisionSchema);
 		if (!form.ok) return fail(400, { shops: { message: form.message } });
 		const r = await decideLink({ me, linkId: form.data.linkId }, form.data.decision, clock());
 		if (!r.ok) return fail(409, { shops: { message: 'That request is already answered.' } });

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { api, parse } from '$lib/server/api';
 import { searchClose } from '$lib/server/close/search';
-import { closeQuerySchema } from '$lib/close/schema';
+import { closeQuerySchema } from '$lib/schemas/close';
 import type { RequestHandler } from './$types';
 
 // Public: newcomers use it before they have an account.

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { api, parse } from '$lib/server/api';
 import { pairsFor, summarise } from '$lib/server/stats/change-effects';
 import { PAIR_RULES, type ChangeKind } from '$lib/sheet/change-kinds';
-import { changeEffectsQuerySchema, paramsObject } from '$lib/stats/schema';
+import { changeEffectsQuerySchema, paramsObject } from '$lib/schemas/stats';
 import type { RequestHandler } from './$types';
 
 // Public. ?kind= adds that kind's pairs (the first 50, largest gain first).

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { api, parse } from '$lib/server/api';
 import { speedMap } from '$lib/server/stats/speed-map';
-import { paramsObject, speedMapQuerySchema } from '$lib/stats/schema';
+import { paramsObject, speedMapQuerySchema } from '$lib/schemas/stats';
 import type { RequestHandler } from './$types';
 
 // Public, like the published sheets it aggregates.

@@ -1,18 +1,13 @@
 import { error, json } from '@sveltejs/kit';
-import { z } from 'zod';
+import { photoPatchSchema } from '$lib/schemas/sheet';
 import { api, noContent, parse, readJson } from '$lib/server/api';
 import { editBuild } from '$lib/server/sheet/access';
 import { removePhoto, updatePhoto } from '$lib/server/sheet/photos';
 import type { RequestHandler } from './$types';
 
-const patch = z.object({
-	caption: z.string().trim().max(300).optional(),
-	setupId: z.number().int().positive().nullable().optional()
-});
-
 export const PATCH: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, Number(event.params.id));
-	const body = parse(patch, await readJson(event.request));
+	const body = parse(photoPatchSchema, await readJson(event.request));
 	if (!(await updatePhoto(build.id, Number(event.params.photoId), body)))
 		error(404, 'No such photo.');
 	return json({ ok: true });

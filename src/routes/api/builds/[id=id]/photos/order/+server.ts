@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { photoOrderSchema } from '$lib/schemas/sheet';
 import { api, noContent, parse, readJson } from '$lib/server/api';
 import { editBuild } from '$lib/server/sheet/access';
 import { reorderPhotos } from '$lib/server/sheet/photos';
@@ -6,10 +6,7 @@ import type { RequestHandler } from './$types';
 
 export const PUT: RequestHandler = api(async (event) => {
 	const { build } = await editBuild(event, Number(event.params.id));
-	const { ids } = parse(
-		z.object({ ids: z.array(z.number().int().positive()).max(50) }),
-		await readJson(event.request)
-	);
+	const { ids } = parse(photoOrderSchema, await readJson(event.request));
 	await reorderPhotos(build.id, ids);
 	return noContent();
 });
