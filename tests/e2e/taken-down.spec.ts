@@ -26,7 +26,13 @@ test('a reader of a build the desk took down sees the public reason, not a bare 
 	const reporter = await makeUser();
 	const mod = await makeUser({ role: 'moderator' });
 	const now = new Date();
-	await fileReport(asCurrent(reporter.id, 'member'), ref, { reason: 'unsafe', note: '' }, now);
+	await fileReport(
+		asCurrent(reporter.id, 'member'),
+		ref,
+		{ reason: 'unsafe', note: '' },
+		now,
+		'127.0.0.1'
+	);
 	const kase = await models().ReviewCase.findOne({
 		where: { itemType: 'build', itemId: build.id }
 	});

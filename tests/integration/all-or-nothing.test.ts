@@ -137,7 +137,8 @@ describe('removing a setup', () => {
 			reader,
 			{ type: 'setup', id: setupId },
 			{ reason: 'wrong-data', note: '' },
-			now()
+			now(),
+			'127.0.0.1'
 		);
 		const { Report, ReviewCase, Flag } = models();
 		await Flag.create({
@@ -166,8 +167,8 @@ describe('the review desk', () => {
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
 		const unsafe = { reason: 'unsafe' as const, note: 'Too fast for the brakes' };
-		await expectAllOrNothing(() => fileReport(reader, ref, unsafe, now()));
-		await fileReport(reader, ref, unsafe, now());
+		await expectAllOrNothing(() => fileReport(reader, ref, unsafe, now(), '127.0.0.1'));
+		await fileReport(reader, ref, unsafe, now(), '127.0.0.1');
 		const kase = (await readCase(ref))!;
 		const hide = { action: 'hide' as const, reason: 'Unsafe advice.' };
 		await expectAllOrNothing(() => decide(mod, kase.id, hide, now()));

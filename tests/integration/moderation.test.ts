@@ -5,6 +5,7 @@ import { flushCommentDigests } from '../../src/lib/server/comments/digest';
 import { createComment, editComment } from '../../src/lib/server/comments/comments';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/sheet/builds';
+import { destroyBuild } from '../../src/lib/server/sheet/build-service';
 import { models } from '../../src/lib/server/db/models';
 import { readCase } from '../../src/lib/server/review/cases';
 import { decide, putBack } from '../../src/lib/server/review/desk';
@@ -110,7 +111,8 @@ describe('suspension', () => {
 			asUser(owner),
 			{ type: 'comment', id: c.id },
 			{ reason: 'spam', note: '' },
-			t0
+			t0,
+			'127.0.0.1'
 		);
 		const kase = await readCase({ type: 'comment', id: c.id });
 		await decide(
@@ -156,6 +158,30 @@ describe('suspension', () => {
 });
 
 describe('reports, flags and the caution banner', () => {
+	it('limits reports in the service itself: the eleventh in an hour from one account is refused', async () => {
+		const owner = await makeUser();
+		const reporter = asUser(await makeUser());
+		const note = { reason: 'spam' as const, note: '' };
+		// Ten different builds, so each report is a new one (a repeat would join the first).
+		const targets = await Promise.all(
+			Array.from({ length: 11 }, (_, i) => publishedBuild(owner.id, `Report limit ${i}`))
+		);
+		for (const { build } of targets.slice(0, 10))
+			await fileReport(reporter, { type: 'build', id: build.id }, note, new Date(), '10.30.0.1');
+		await expect(
+			fileReport(
+				reporter,
+				{ type: 'build', id: targets[10].build.id },
+				note,
+				new Date(),
+				'10.30.0.2'
+			)
+		).rejects.toMatchObject({ status: 429 });
+		const filed = await models().Report.count({ where: { reporterId: reporter.id } });
+		expect(filed).toBe(10);
+		for (const { build } of targets) await destroyBuild(build.id);
+	});
+
 	it('one report never raises the banner; three unsafe reporters, a triage or a flag do', async () => {
 		const owner = await makeUser();
 		const { build } = await publishedBuild(owner.id);
@@ -163,19 +189,19 @@ describe('reports, flags and the caution banner', () => {
 		const [a, b, c] = await Promise.all([makeUser(), makeUser(), makeUser()]);
 		const now = new Date();
 		const unsafe = { reason: 'unsafe' as const, note: 'no front brake' };
-		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({
+		expect(await fileReport(asUser(a), ref, unsafe, now, '127.0.0.1')).toEqual({
 			filed: true,
 			added: false,
 			caution: false
 		});
 		// The same person again: added to their open report, still one reporter.
-		expect(await fileReport(asUser(a), ref, unsafe, now)).toEqual({
+		expect(await fileReport(asUser(a), ref, unsafe, now, '127.0.0.1')).toEqual({
 			filed: true,
 			added: true,
 			caution: false
 		});
-		expect((await fileReport(asUser(b), ref, unsafe, now)).caution).toBe(false);
-		expect((await fileReport(asUser(c), ref, unsafe, now)).caution).toBe(true);
+		expect((await fileReport(asUser(b), ref, unsafe, now, '127.0.0.1')).caution).toBe(false);
+		expect((await fileReport(asUser(c), ref, unsafe, now, '127.0.0.1')).caution).toBe(true);
 		expect(await models().Report.count({ where: { itemType: 'build', itemId: build.id } })).toBe(3);
 	});
 
@@ -184,12 +210,13 @@ describe('reports, flags and the caution banner', () => {
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
 		const r = asUser(await makeUser());
-		await fileReport(r, ref, { reason: 'unsafe', note: '' }, new Date());
+		await fileReport(r, ref, { reason: 'unsafe', note: '' }, new Date(), '127.0.0.1');
 		const second = await fileReport(
 			r,
 			ref,
 			{ reason: 'wrong-data', note: 'The jet size is for a different carb.' },
-			new Date()
+			new Date(),
+			'127.0.0.1'
 		);
 		expect(second).toMatchObject({ filed: true, added: true });
 		const rows = await models().Report.findAll({ where: { itemType: 'build', itemId: build.id } });
@@ -204,7 +231,7 @@ describe('reports, flags and the caution banner', () => {
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
 		const r = await makeUser();
-		await fileReport(asUser(r), ref, { reason: 'wrong-data', note: '' }, new Date());
+		await fileReport(asUser(r), ref, { reason: 'wrong-data', note: '' }, new Date(), '127.0.0.1');
 		expect((await readCase(ref))?.caution).toBe(false);
 		const kase = await readCase(ref);
 		await decide(asUser(mod, 'moderator'), kase!.id, { action: 'triage', reason: '' }, new Date());
@@ -232,7 +259,13 @@ describe('reports, flags and the caution banner', () => {
 		const mod = await makeUser({ role: 'moderator' });
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
-		await fileReport(asUser(await makeUser()), ref, { reason: 'unsafe', note: '' }, new Date());
+		await fileReport(
+			asUser(await makeUser()),
+			ref,
+			{ reason: 'unsafe', note: '' },
+			new Date(),
+			'127.0.0.1'
+		);
 		const kase = (await readCase(ref))!;
 		const before = (await builds.read(build.id))!.get({ plain: true });
 		await decide(
@@ -272,7 +305,8 @@ describe('reports, flags and the caution banner', () => {
 			asUser(await makeUser()),
 			{ type: 'comment', id: c.id },
 			{ reason: 'wrong-data', note: '' },
-			now
+			now,
+			'127.0.0.1'
 		);
 		await editComment(author, c.id, 'Try a 94 main', now);
 		expect((await models().Comment.findByPk(c.id))?.body).toBe('Try a 94 main');
@@ -285,7 +319,13 @@ describe('putting back and who is mailed', () => {
 		const mod = asUser(await makeUser({ role: 'moderator' }), 'moderator');
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
-		await fileReport(asUser(await makeUser()), ref, { reason: 'spam', note: '' }, new Date());
+		await fileReport(
+			asUser(await makeUser()),
+			ref,
+			{ reason: 'spam', note: '' },
+			new Date(),
+			'127.0.0.1'
+		);
 		const c = (await readCase(ref))!;
 		await decide(mod, c.id, { action: 'hide', reason: 'advertising' }, new Date());
 		return { owner, mod, build, ref };
@@ -323,12 +363,24 @@ describe('putting back and who is mailed', () => {
 		const mod = asUser(await makeUser({ role: 'moderator' }), 'moderator');
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
-		await fileReport(asUser(await makeUser()), ref, { reason: 'other', note: '' }, new Date());
+		await fileReport(
+			asUser(await makeUser()),
+			ref,
+			{ reason: 'other', note: '' },
+			new Date(),
+			'127.0.0.1'
+		);
 		const c = (await readCase(ref))!;
 		await decide(mod, c.id, { action: 'triage', reason: '' }, new Date());
 		await decide(mod, c.id, { action: 'dismiss', reason: '' }, new Date());
 		expect(await deliveredTo(owner.email)).toEqual([]);
-		await fileReport(asUser(await makeUser()), ref, { reason: 'other', note: '' }, new Date());
+		await fileReport(
+			asUser(await makeUser()),
+			ref,
+			{ reason: 'other', note: '' },
+			new Date(),
+			'127.0.0.1'
+		);
 		await decide(mod, c.id, { action: 'hide', reason: 'made-up figures' }, new Date());
 		expect(await deliveredTo(owner.email)).toHaveLength(1);
 	});
@@ -343,7 +395,13 @@ describe('the desk a page at a time', () => {
 		for (let i = 0; i < 3; i++) {
 			const { build } = await publishedBuild(owner.id, `Desk page ${i}`);
 			const ref = { type: 'build' as const, id: build.id };
-			await fileReport(asUser(await makeUser()), ref, { reason: 'other', note: '' }, new Date());
+			await fileReport(
+				asUser(await makeUser()),
+				ref,
+				{ reason: 'other', note: '' },
+				new Date(),
+				'127.0.0.1'
+			);
 			mine.push((await readCase(ref))!.id);
 		}
 		expect(await deskCount()).toBeGreaterThanOrEqual(3);

@@ -281,13 +281,15 @@ async function busyAccount() {
 		other,
 		{ type: 'build', id: build.id },
 		{ reason: 'spam', note: '' },
-		new Date()
+		new Date(),
+		'127.0.0.1'
 	);
 	await fileReport(
 		owner,
 		{ type: 'build', id: theirs.id },
 		{ reason: 'spam', note: '' },
-		new Date()
+		new Date(),
+		'127.0.0.1'
 	);
 	return { owner, shop, build, setupId, photo, logoKey, mine, onMine, theirs };
 }

@@ -85,7 +85,8 @@ async function seed(): Promise<Seeded> {
 			who,
 			{ type: 'comment', id: commentIds[i] },
 			{ reason: 'other', note: p(i + 9, 1000) },
-			now
+			now,
+			'127.0.0.1'
 		);
 	}
 	const mod = await makeUser({ role: 'moderator' });

@@ -3,11 +3,11 @@ import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { ITEM_LABEL, ITEM_TYPES, type ItemType } from '$lib/review/kinds';
 import { reportSchema } from '$lib/schemas/review';
-import { reportsByAccount, reportsByAddress, spend, waitText } from '$lib/server/auth/limits';
 import { clock } from '$lib/clock';
 import { requireUser } from '$lib/server/guard';
 import { requireItem } from '$lib/server/review/items';
 import { fileReport } from '$lib/server/review/reports';
+import { formFailure } from '$lib/server/web/form-failure';
 import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -36,22 +36,18 @@ export const actions: Actions = forPages({
 		const me = requireUser(event);
 		const form = await superValidate(event.request, zod4(reportSchema));
 		if (!form.valid) return fail(400, { form });
-		const limit = await spend([
-			[reportsByAccount, me.id],
-			[reportsByAddress, event.getClientAddress()]
-		]);
-		if (!limit.ok)
-			return message(
-				form,
-				`You have sent a lot of reports in a short time. Try again in ${waitText(limit.retryAfterS)}; your note is kept.`,
-				{ status: 429 }
+		let r;
+		try {
+			r = await fileReport(
+				me,
+				{ type: form.data.itemType, id: form.data.itemId },
+				{ reason: form.data.reason, note: form.data.note },
+				clock(),
+				event.getClientAddress()
 			);
-		const r = await fileReport(
-			me,
-			{ type: form.data.itemType, id: form.data.itemId },
-			{ reason: form.data.reason, note: form.data.note },
-			clock()
-		);
+		} catch (e) {
+			return formFailure(form, e);
+		}
 		return message(
 			form,
 			r.added

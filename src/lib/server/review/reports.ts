@@ -2,6 +2,7 @@ import { Failure } from '../../failure';
 import { UniqueConstraintError } from 'sequelize';
 import { REPORT_NOTE_MAX, type ReportReason } from '../../review/kinds';
 import type { CurrentUser } from '../auth/current-user';
+import { reportsByAccount, reportsByAddress, spend, waitText } from '../auth/limits';
 import { models } from '../db/models';
 import { openCase, refreshCaution } from './cases';
 import { requireItem, type ItemRef } from './items';
@@ -11,14 +12,25 @@ export type ReportResult = { filed: boolean; added: boolean; caution: boolean };
 
 /**
  * Files a member's report. One open report per person per item (the database keeps it so): a
- * second one while the first is open adds its note to it and takes its reason.
+ * second one while the first is open adds its note to it and takes its reason. Reports are
+ * limited per account and per address (429), so the desk cannot be flooded from one place.
  */
 export async function fileReport(
 	me: CurrentUser,
 	ref: ItemRef,
 	input: { reason: ReportReason; note: string },
-	now: Date
+	now: Date,
+	address: string
 ): Promise<ReportResult> {
+	const limit = await spend([
+		[reportsByAccount, me.id],
+		[reportsByAddress, address]
+	]);
+	if (!limit.ok)
+		throw new Failure(
+			429,
+			`You have sent a lot of reports in a short time. Try again in ${waitText(limit.retryAfterS)}; your note is kept.`
+		);
 	return inTransaction(async () => {
 		const item = await requireItem(ref);
 		// Only what the reporter can see can be reported; a draft's existence stays hidden.
