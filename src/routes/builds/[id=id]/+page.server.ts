@@ -63,7 +63,7 @@ export const load: PageServerLoad = async (event) => {
 				.filter((s) => s.moderation === 'hidden')
 				.map((s) => ({ id: s.id, position: s.position, hiddenReason: s.hiddenReason }));
 	if (!standing.seesHidden) view.setups = view.setups.filter((s) => s.moderation !== 'hidden');
-	const canTalk =
+	const canComment =
 		build.publication === 'published' && build.moderation === 'visible' && !me?.suspension;
 	return {
 		units,
@@ -73,7 +73,7 @@ export const load: PageServerLoad = async (event) => {
 		steps,
 		comments,
 		standing,
-		canTalk,
+		canComment,
 		takenDown,
 		shops,
 		pendingShops,
@@ -113,13 +113,17 @@ export const actions: Actions = forPages({
 		const form = await parseForm(event.request, commentSchema);
 		const slot = form.values.parentId ? `reply-${form.values.parentId}` : 'new';
 		if (!form.ok)
-			return fail(400, { talk: { slot, body: form.values.body ?? '', message: form.message } });
+			return fail(400, {
+				commentAnswer: { slot, body: form.values.body ?? '', message: form.message }
+			});
 		try {
 			const c = await createComment(me, build, form.data, event.getClientAddress(), clock());
 			back(build.id, `comment-${c.id}`);
 		} catch (e) {
 			if (e instanceof Failure)
-				return fail(e.status, { talk: { slot, body: form.data.body, message: e.message } });
+				return fail(e.status, {
+					commentAnswer: { slot, body: form.data.body, message: e.message }
+				});
 			throw e;
 		}
 	},
@@ -128,7 +132,9 @@ export const actions: Actions = forPages({
 		const form = await parseForm(event.request, commentEditSchema);
 		const slot = `edit-${form.values.commentId}`;
 		if (!form.ok)
-			return fail(400, { talk: { slot, body: form.values.body ?? '', message: form.message } });
+			return fail(400, {
+				commentAnswer: { slot, body: form.values.body ?? '', message: form.message }
+			});
 		const c = await editComment(me, form.data.commentId, form.data.body, clock());
 		if (c.buildId !== build.id) error(404, 'No such comment on this build.');
 		back(build.id, `comment-${c.id}`);
@@ -136,7 +142,8 @@ export const actions: Actions = forPages({
 	deleteComment: async (event) => {
 		const { me, build } = await target(event);
 		const form = await parseForm(event.request, commentRefSchema);
-		if (!form.ok) return fail(400, { talk: { slot: 'delete', body: '', message: form.message } });
+		if (!form.ok)
+			return fail(400, { commentAnswer: { slot: 'delete', body: '', message: form.message } });
 		const c = await deleteComment(me, form.data.commentId, clock());
 		back(build.id, `comment-${c.id}`);
 	},
