@@ -5,6 +5,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { productionEnv, productionProblems } from './lib/settings.js';
+import { serveBuild } from './lib/http-server.js';
 import { ROOT } from './lib/profiles.js';
 
 function refuse(lines) {
@@ -36,7 +37,7 @@ for (const signal of ['SIGTERM', 'SIGINT'])
 	process.once(signal, () => setTimeout(() => process.exit(0), 20_000).unref());
 for (const k of ['SQUISHLINE_DEMO', 'FAKE_MAIL_DIR']) delete process.env[k];
 console.log(`Squishline (production) on ${env.HOST}:${env.PORT}, serving ${env.ORIGIN}`);
-await import(path.join(buildDir, 'index.js'));
+await serveBuild(buildDir);
 
 /** Migration files in the source that the database has not recorded as applied. */
 async function pendingMigrations(e) {

@@ -1,7 +1,8 @@
-// Serves the adapter-node build and exits if the launcher that started it disappears.
-import path from 'node:path';
+// Serves the adapter-node build (compressed: lib/http-server.js) and exits if the launcher that
+// started it disappears.
+import { serveBuild } from './lib/http-server.js';
 import { exitWhenOrphaned } from './lib/orphan-guard.js';
 
 const dir = process.env.BUILD_DIR ?? 'build';
 exitWhenOrphaned(() => undefined);
-await import(path.resolve(dir, 'index.js'));
+await serveBuild(dir);

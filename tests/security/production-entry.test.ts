@@ -1,3 +1,4 @@
+import http from 'node:http';
 import { afterAll, describe, expect, it } from 'vitest';
 import { productionSettings as settingsOn, runEntry, type Entry } from './support/app';
 
@@ -85,4 +86,42 @@ describe('with its settings it starts, with no demo conveniences', () => {
 		expect(home).not.toContain('/dev/outbox');
 		expect(home).toContain('Squishline');
 	});
+
+	it('compresses pages and JSON over 1 kB as the client asks, and nothing for a client that asks for none', async () => {
+		// The entry from the test above is still running on PORT.
+		const home = await raw('/', 'br, gzip');
+		expect(home.encoding).toBe('br');
+		expect(home.type).toContain('text/html');
+		const list = await raw('/api/builds', 'gzip');
+		expect(list.encoding).toBe('gzip');
+		expect(list.type).toContain('application/json');
+		const plain = await raw('/', null);
+		expect(plain.encoding).toBeUndefined();
+		// A page of markup compresses several times over.
+		expect(home.bytes).toBeLessThan(plain.bytes / 3);
+		// Under the 1 kB threshold nothing is compressed (the health answer is a few bytes).
+		expect((await raw('/api/health', 'br, gzip')).encoding).toBeUndefined();
+	});
 });
+
+/** One GET with exactly the Accept-Encoding given, read as bytes on the wire (not decoded). */
+function raw(path: string, acceptEncoding: string | null) {
+	return new Promise<{ encoding?: string; type: string; bytes: number }>((resolve, reject) => {
+		const headers: Record<string, string> = acceptEncoding
+			? { 'accept-encoding': acceptEncoding }
+			: {};
+		http
+			.get(`${ORIGIN}${path}`, { headers }, (res) => {
+				let bytes = 0;
+				res.on('data', (c: Buffer) => (bytes += c.length));
+				res.on('end', () =>
+					resolve({
+						encoding: res.headers['content-encoding'],
+						type: String(res.headers['content-type'] ?? ''),
+						bytes
+					})
+				);
+			})
+			.on('error', reject);
+	});
+}
