@@ -13,8 +13,14 @@ import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/web/origin-check';
 import { withSecurityHeaders } from '$lib/server/web/security-headers';
 
+// Auth.js's session cookie, whole or in chunks (a large token is split as `.0`, `.1`, …).
+const SESSION_COOKIE = /^(__Secure-)?authjs\.session-token(\.\d+)?$/;
+
 const currentUser: Handle = async ({ event, resolve }) => {
-	const session = await event.locals.auth();
+	// Without a session cookie there is no one to look up; asking Auth.js anyway makes it set a
+	// callback-url cookie on every answer, and an answer with Set-Cookie cannot be shared by caches.
+	const signedIn = event.cookies.getAll().some((c) => SESSION_COOKIE.test(c.name));
+	const session = signedIn ? await event.locals.auth() : null;
 	const loaded = await loadCurrentUser(session?.user?.id);
 	event.locals.user = loaded.user;
 	return resolve(event);

@@ -57,6 +57,17 @@ describe('security headers', () => {
 	});
 });
 
+describe('anonymous answers', () => {
+	it('a public page or JSON read without signing in sets no cookie, so a shared cache may keep it', async () => {
+		const c = new Client(app.origin);
+		const list = await c.fetch('/api/builds');
+		const first = ((await list.json()) as { builds: { id: number }[] }).builds[0];
+		expect(list.headers.getSetCookie()).toEqual([]);
+		for (const path of ['/', '/builds', `/builds/${first.id}`, '/speed-map', '/api/builds'])
+			expect((await c.fetch(path)).headers.getSetCookie(), path).toEqual([]);
+	});
+});
+
 describe('body caps', () => {
 	it('an anonymous 30 MB POST to /signin gets 413 with words, without being read', async () => {
 		// A connection of its own: the server closes it without reading the rest of the body.
