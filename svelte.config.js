@@ -19,7 +19,9 @@ const config = {
 		// Scripts only from this origin, each page's own inline start-up script by nonce. Styles may
 		// be inline (charts set style attributes); member content can never carry one (markdown.ts).
 		csp: {
-			mode: 'auto',
+			// Hashes of the inline scripts SvelteKit writes, not per-request nonces: the same page is
+			// then the same bytes, so its ETag holds and a reader who has it gets 304.
+			mode: 'hash',
 			directives: {
 				'default-src': ['self'],
 				'script-src': ['self'],

@@ -11,6 +11,7 @@ import { flushMailQueue } from '$lib/server/mail/queue';
 import { closeDb } from '$lib/server/db/connection';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/web/origin-check';
+import { publicCache } from '$lib/server/web/public-cache';
 import { withSecurityHeaders } from '$lib/server/web/security-headers';
 
 // Auth.js's session cookie, whole or in chunks (a large token is split as `.0`, `.1`, …).
@@ -33,7 +34,8 @@ export const handle = sequence(
 	pinHost,
 	clientAddress,
 	authHandle,
-	currentUser
+	currentUser,
+	publicCache
 );
 
 export const handleError: HandleServerError = ({ error, event, status }) => {

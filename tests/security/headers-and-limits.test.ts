@@ -23,11 +23,13 @@ afterAll(async () => {
 });
 
 describe('security headers', () => {
-	it('a page carries a nonce-based CSP with no inline scripts, and cannot be framed', async () => {
+	it('a page carries a hash-based CSP with no inline scripts, and cannot be framed', async () => {
 		const res = await new Client(app.origin).fetch('/signin');
 		const csp = res.headers.get('content-security-policy') ?? '';
 		const script = csp.split(';').find((d) => d.trim().startsWith('script-src')) ?? '';
-		expect(script).toMatch(/'nonce-[^']+'/);
+		// Only the exact scripts SvelteKit wrote into the page may run (CSP Level 3, hash-source).
+		expect(script).toMatch(/'sha256-[A-Za-z0-9+/=]+'/);
+		expect(script).not.toContain('nonce-');
 		expect(script).not.toContain('unsafe-inline');
 		expect(csp).toContain("frame-ancestors 'none'");
 		expect(csp).toContain("object-src 'none'");
@@ -65,6 +67,28 @@ describe('anonymous answers', () => {
 		expect(list.headers.getSetCookie()).toEqual([]);
 		for (const path of ['/', '/builds', `/builds/${first.id}`, '/speed-map', '/api/builds'])
 			expect((await c.fetch(path)).headers.getSetCookie(), path).toEqual([]);
+	});
+
+	it('a build page and public JSON carry an ETag and answer 304 to it; signed in, nothing is public', async () => {
+		const c = new Client(app.origin);
+		const list = await c.fetch('/api/builds');
+		const first = ((await list.json()) as { builds: { id: number }[] }).builds[0];
+		for (const path of [`/builds/${first.id}`, '/api/builds']) {
+			const res = await c.fetch(path);
+			const etag = res.headers.get('etag');
+			expect(etag, path).toMatch(/^"[^"]+"$/);
+			expect(res.headers.get('cache-control'), path).toBe('public, max-age=0, must-revalidate');
+			expect(res.headers.get('vary'), path).toContain('Cookie');
+			const again = await c.fetch(path, { headers: { 'if-none-match': etag! } });
+			expect(again.status, path).toBe(304);
+			expect(await again.text(), path).toBe('');
+		}
+		const u = await makeUser();
+		const member = new Client(app.origin);
+		await member.signIn(u.email, u.password);
+		const own = await member.fetch(`/builds/${first.id}`);
+		expect(own.status).toBe(200);
+		expect(own.headers.get('cache-control') ?? '').not.toContain('public');
 	});
 });
 

@@ -2,7 +2,7 @@ import type { Handle } from '@sveltejs/kit';
 import { env } from '../env';
 
 // Headers every response carries. The Content-Security-Policy itself comes from kit.csp in
-// svelte.config.js (it needs the per-page script nonces); this adds the rest.
+// svelte.config.js (it needs the hashes of each page's inline scripts); this adds the rest.
 
 const PERMISSIONS = [
 	'camera=()',
