@@ -8,6 +8,8 @@ export const MAY_IMPORT = {
 	admin: ['auth', 'db', 'mail', 'review'],
 	// Request handling: hooks' handles, form failures, idempotent creates.
 	web: ['auth', 'db', 'mail', 'storage'],
+	// Read models of whole pages, each in one SELECT of columns the domains write.
+	pages: ['auth', 'comments', 'db', 'review', 'sheet', 'shops', 'stats', 'text'],
 	shops: ['auth', 'db', 'derived', 'mail', 'review', 'sheet', 'storage', 'text'],
 	sheet: ['auth', 'db', 'derived', 'review', 'storage', 'text'],
 	stats: ['db', 'derived'],

@@ -6,7 +6,7 @@ import { models } from '../../src/lib/server/db/models';
 import { renderMarkdown } from '../../src/lib/server/text/markdown';
 import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { setPublication } from '../../src/lib/server/sheet/build-service';
-import { buildView } from '../../src/lib/server/sheet/view';
+import { buildPage } from '../../src/lib/server/pages/build-page';
 import { load as viewLoad } from '../../src/routes/builds/[id=id]/+page.server';
 import {
 	actions as editActions,
@@ -165,7 +165,7 @@ describe('Markdown stories', () => {
 		expect(html).toContain('<strong>bold</strong>');
 		const owner = await makeUser();
 		const b = await builds.create(owner.id, { title: 'Story test', story: evil });
-		expect((await buildView(b, 'metric')).build.storyHtml).not.toMatch(
+		expect((await buildPage(b, null, 'metric')).build.storyHtml).not.toMatch(
 			/<script|onerror|href="javascript:/i
 		);
 	});

@@ -3,7 +3,9 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/sheet/builds';
 import { BAND } from '../../src/lib/close/weights';
-import { closeBuilds, rankClose, targetFrom } from '../../src/lib/server/close/service';
+import { closeBuilds, planClose, targetFrom } from '../../src/lib/server/close/service';
+import { searchClose } from '../../src/lib/server/close/search';
+import { closeQuerySchema } from '../../src/lib/schemas/close';
 import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { makeUser } from '../support/factories';
@@ -89,14 +91,31 @@ describe('close builds', () => {
 		expect(nothing.results.every((r) => r.score === 0)).toBe(true);
 	});
 
-	it('makes the same number of queries for 5 results as for 50', async () => {
+	it('makes at most three queries, however many bands it must try and results it gives', async () => {
+		// A threshold no band can reach makes it try every band and both pipe choices: before, one
+		// query each, in sequence (thirteen here), then the ranking and the details.
+		const saved = BAND.minCandidates;
+		BAND.minCandidates = 1_000_000;
 		const spy = vi.spyOn(db(), 'query');
-		await closeBuilds(target, { cycle: 'two-stroke', limit: 5 });
-		const five = spy.mock.calls.length;
-		spy.mockClear();
-		await closeBuilds(target, { cycle: 'two-stroke', limit: 50 });
-		expect(spy.mock.calls.length).toBe(five);
-		spy.mockRestore();
+		try {
+			const counts: number[] = [];
+			for (const limit of [5, 50]) {
+				spy.mockClear();
+				const found = await closeBuilds(target, { cycle: 'two-stroke', limit });
+				expect(found.results.length).toBeGreaterThan(0);
+				counts.push(spy.mock.calls.length);
+			}
+			expect(counts).toEqual([2, 2]);
+			// From a build of one's own: its setup is read first, the third query.
+			spy.mockClear();
+			const fromBuild = await searchClose(closeQuerySchema.parse({ build: ids.P }));
+			expect(fromBuild.fromBuild).toBe(ids.P);
+			expect(mine(fromBuild.results).length).toBeGreaterThan(0);
+			expect(spy.mock.calls.length).toBe(3);
+		} finally {
+			BAND.minCandidates = saved;
+			spy.mockRestore();
+		}
 	});
 
 	it('ranks over a covering prefilter index, led by displacement or else by carburettor bore', async () => {
@@ -113,14 +132,10 @@ describe('close builds', () => {
 				{ cycle: 'two-stroke', carb: 17, limit: 5 }
 			] as const) {
 				spy.mockClear();
-				await rankClose(targetFrom(q), { cycle: 'two-stroke', limit: 5 });
-				const [sql, options] = spy.mock.calls.at(-1)! as unknown as [
-					string,
-					{ replacements: Record<string, unknown> }
-				];
+				const ranking = await planClose(targetFrom(q), { cycle: 'two-stroke', limit: 5 });
 				spy.mockClear();
-				const [plan] = await db().query<{ key: string; Extra: string }>(`EXPLAIN ${sql}`, {
-					replacements: options.replacements,
+				const [plan] = await db().query<{ key: string; Extra: string }>(`EXPLAIN ${ranking.sql}`, {
+					replacements: ranking.replacements,
 					type: QueryTypes.SELECT
 				});
 				plans.push(plan);

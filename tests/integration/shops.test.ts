@@ -9,7 +9,8 @@ import { createComment } from '../../src/lib/server/comments/comments';
 import { fileReport } from '../../src/lib/server/review/reports';
 import { deliveredTo } from '../support/mail';
 import { addPhoto } from '../../src/lib/server/sheet/photos';
-import { decideLink, requestLink, shownLinks } from '../../src/lib/server/shops/links';
+import { decideLink, requestLink } from '../../src/lib/server/shops/links';
+import { buildPage } from '../../src/lib/server/pages/build-page';
 import { setLogo } from '../../src/lib/server/shops/logo';
 import { linkedBuilds, saveShop } from '../../src/lib/server/shops/pages';
 import { summarise } from '../../src/lib/shops/summary';
@@ -88,7 +89,9 @@ describe('shop links: signed, single-use, one-day tokens', () => {
 		expect(r.ok).toBe(true);
 		expect(await state()).toBe('approved');
 		expect(await decideLink({ token: approve }, null, now)).toEqual({ ok: false, problem: 'used' });
-		expect((await shownLinks(build.id)).map((x) => x.shopName)).toEqual([shop.name]);
+		expect((await buildPage(build, null, 'metric')).shops.map((x) => x.shopName)).toEqual([
+			shop.name
+		]);
 
 		const summary = summarise(await linkedBuilds(shop.id));
 		expect(summary.builds).toBe(1);

@@ -2,6 +2,7 @@ import type { Transaction } from 'sequelize';
 import type { Role } from '../../roles';
 import { hashPassword } from './password';
 import { models, type User } from '../db/models';
+import { scalar } from '../db/nested';
 
 export type UserPatch = Partial<
 	Pick<
@@ -22,6 +23,10 @@ export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 export async function read(id: string) {
 	return models().User.findByPk(id);
 }
+
+/** A member's display name as a column of a page's one SELECT (db/nested.ts): nothing else. */
+export const nameColumn = (idSql: string) =>
+	scalar(`(SELECT name FROM users WHERE id = ${idSql})`, (v) => (v as string | null) ?? null);
 
 export async function readByEmail(email: string) {
 	return models().User.findOne({ where: { email: normaliseEmail(email) } });

@@ -20,7 +20,6 @@ type Row = {
 	elev: number | null;
 	best: number | null;
 	score: number;
-	candidates: number;
 };
 
 const PIPES = ['', ...EXHAUST_TYPES.map((o) => o.value)];
@@ -85,11 +84,12 @@ export async function targetFromBuild(
 }
 
 /**
- * Ranks the published setups nearest to `target` in one SQL query over the covering index:
- * prefilter on (flag, cycle, displacement band), score on the stored derived columns, sort, limit.
- * The band widens (a second query) only when too few builds fall inside it.
+ * Plans the ranking of the published setups nearest to `target`: a prefilter on (flag, cycle,
+ * displacement band) over a covering index, scored on the stored derived columns. The band is the
+ * narrowest that holds enough builds; every candidate band is counted in one query (each count
+ * stops at the threshold, so it reads a bounded number of index entries at any data size).
  */
-export async function rankClose(
+export async function planClose(
 	target: Target,
 	opts: { cycle: string; all?: boolean; limit: number; excludeBuild?: number }
 ) {
@@ -116,7 +116,7 @@ export async function rankClose(
 	// pipe type while it alone holds enough builds; the band doubles while too few builds fall inside.
 	const lead =
 		typeof target.cc === 'number' ? 'cc' : typeof target.carb === 'number' ? 'carb' : null;
-	type Plan = { band: number | null; samePipe: boolean };
+	type Plan = { band: number | null; samePipe: boolean; key: number };
 	const indexFor = (p: Plan) =>
 		lead === 'carb' && p.band !== null
 			? opts.all
@@ -127,92 +127,94 @@ export async function rankClose(
 					? 'setups_close_all_by_exhaust'
 					: 'setups_close_by_exhaust'
 				: index;
+	// Each plan's bounds have their own names (:lo3, :pipes3), so all plans fit one statement.
 	const bandSql = (p: Plan) =>
 		p.band === null
 			? p.samePipe
 				? 'AND s.exhaust_type = :v_exhaust'
 				: ''
 			: lead === 'cc'
-				? `${p.samePipe ? 'AND s.exhaust_type = :v_exhaust' : ''} AND s.displacement_cc BETWEEN :lo AND :hi`
+				? `${p.samePipe ? 'AND s.exhaust_type = :v_exhaust' : ''} AND s.displacement_cc BETWEEN :lo${p.key} AND :hi${p.key}`
 				: // Pipe types as a list of points, so the bore range applies inside each.
-					`AND s.close_pipe IN (:pipes) AND s.carb_bore_mm BETWEEN :lo AND :hi`;
+					`AND s.close_pipe IN (:pipes${p.key}) AND s.carb_bore_mm BETWEEN :lo${p.key} AND :hi${p.key}`;
 	const where = (p: Plan) => `s.${flag} = 1 AND s.engine_cycle = :cycle ${bandSql(p)} ${exclude}`;
 	const centre = lead === 'cc' ? target.cc! : lead === 'carb' ? target.carb! : 0;
-	const bounds = (p: Plan) => ({
-		...repl,
-		pipes: p.samePipe ? [target.exhaust] : PIPES,
-		lo: centre - (p.band ?? 0),
-		hi: centre + (p.band ?? 0)
-	});
-	// Enough builds in the prefilter? Counting stops at the threshold, so this reads few index entries.
-	const enough = async (p: Plan) => {
-		const [r] = await db().query<{ n: number }>(
-			`SELECT COUNT(*) AS n FROM (SELECT 1 FROM setups s FORCE INDEX (${indexFor(p)}) WHERE ${where(p)} LIMIT ${BAND.minCandidates}) x`,
-			{ replacements: bounds(p), type: QueryTypes.SELECT }
-		);
-		return Number(r.n) >= BAND.minCandidates;
-	};
 	const plans: Plan[] = [];
 	const first = lead === 'cc' ? BAND.initialCc : BAND.initialCarbMm;
 	const bands: (number | null)[] = lead
 		? [...Array.from({ length: BAND.widenings }, (_, k) => first * 2 ** k), null]
 		: [null];
 	for (const samePipe of target.exhaust ? [true, false] : [false])
-		for (const b of bands) plans.push({ band: b, samePipe });
-	let plan = plans[plans.length - 1];
-	for (const p of plans.slice(0, -1)) {
-		if (await enough(p)) {
-			plan = p;
-			break;
+		for (const band of bands) {
+			const p = { band, samePipe, key: plans.length };
+			plans.push(p);
+			repl[`pipes${p.key}`] = samePipe ? [target.exhaust] : PIPES;
+			repl[`lo${p.key}`] = centre - (band ?? 0);
+			repl[`hi${p.key}`] = centre + (band ?? 0);
 		}
+	// The last plan (no band, any pipe) needs no count: it is what is left.
+	const probed = plans.slice(0, -1);
+	let plan = plans[plans.length - 1];
+	if (probed.length) {
+		const counts = probed.map(
+			(p) =>
+				`(SELECT COUNT(*) FROM (SELECT 1 FROM setups s FORCE INDEX (${indexFor(p)}) WHERE ${where(p)} LIMIT ${BAND.minCandidates}) x) AS n${p.key}`
+		);
+		const [n] = await db().query<Record<string, number>>(`SELECT ${counts.join(',\n')}`, {
+			replacements: repl,
+			type: QueryTypes.SELECT
+		});
+		plan = probed.find((p) => Number(n[`n${p.key}`]) >= BAND.minCandidates) ?? plan;
 	}
-	const band = lead === 'cc' ? plan.band : null;
 	// The carburettor-led index carries the pipe type as close_pipe only: read it there, so the scan
 	// stays on the index.
 	const pipeCol = indexFor(plan).includes('carb') ? "NULLIF(s.close_pipe, '')" : 's.exhaust_type';
-	const rows = await db().query<Row>(
-		`SELECT s.id, s.build_id, s.displacement_cc AS cc, ${pipeCol} AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
+	const sql = `SELECT s.id, s.build_id, s.displacement_cc AS cc, ${pipeCol} AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
 			s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers, s.sea_level_jet AS jet, s.best_run_elevation_m AS elev,
 			s.best_run_kmh AS best, (${score.replaceAll('PIPE_COL', pipeCol)}) AS score
 		FROM setups s FORCE INDEX (${indexFor(plan)})
 		WHERE ${where(plan)}
-		ORDER BY score, s.id LIMIT :limit`,
-		{ replacements: bounds(plan), type: QueryTypes.SELECT }
-	);
-	return { rows, band, samePipe: plan.samePipe, candidates: rows.length };
+		ORDER BY score, s.id LIMIT :limit`;
+	return {
+		sql,
+		replacements: repl,
+		band: lead === 'cc' ? plan.band : null,
+		samePipe: plan.samePipe
+	};
 }
 
-/** Ranked rows with titles, owners, costs and reasons: one more query, whatever the number of results. */
+type Ranked = Row & {
+	position: number;
+	change_note: string;
+	method: string | null;
+	title: string;
+	parts_minor: number;
+	currency: string;
+	owner: string | null;
+};
+
+/**
+ * Ranked rows with titles, owners, costs and reasons. Two queries at any data size and for any
+ * number of results: the band counts, then the ranking with each result's details joined to it
+ * (the ranked rows are a derived table with its own LIMIT, so only they are joined).
+ */
 export async function closeBuilds(
 	target: Target,
 	opts: { cycle: string; all?: boolean; limit: number; excludeBuild?: number }
 ) {
-	const { rows, band, candidates } = await rankClose(target, opts);
-	const ids = rows.map((r) => r.id);
-	const details = ids.length
-		? await db().query<{
-				id: number;
-				position: number;
-				change_note: string;
-				method: string | null;
-				build_id: number;
-				title: string;
-				parts_minor: number;
-				currency: string;
-				owner: string | null;
-			}>(
-				// A setup's cost is what was fitted up to it: the parts of its own and earlier setups.
-				// Parts tied to no setup count only on the build's representative setup.
-				`SELECT s.id, s.position, s.change_note, s.best_run_method AS method, b.id AS build_id, b.title, b.currency, u.name AS owner,
-					(SELECT COALESCE(SUM(p.cost_minor), 0) FROM parts p LEFT JOIN setups ps ON ps.id = p.setup_id
-						WHERE p.build_id = s.build_id AND (ps.position <= s.position OR (p.setup_id IS NULL AND s.listed = 1))) AS parts_minor
-				FROM setups s JOIN builds b ON b.id = s.build_id LEFT JOIN users u ON u.id = b.owner_id WHERE s.id IN (:ids)`,
-				{ replacements: { ids }, type: QueryTypes.SELECT }
-			)
-		: [];
-	const byId = new Map(details.map((d) => [d.id, d]));
+	const plan = await planClose(target, opts);
+	const rows = await db().query<Ranked>(
+		// A setup's cost is what was fitted up to it: the parts of its own and earlier setups.
+		// Parts tied to no setup count only on the build's representative setup.
+		`SELECT r.*, s.position, s.change_note, s.best_run_method AS method, b.title, b.currency, u.name AS owner,
+			(SELECT COALESCE(SUM(p.cost_minor), 0) FROM parts p LEFT JOIN setups ps ON ps.id = p.setup_id
+				WHERE p.build_id = s.build_id AND (ps.position <= s.position OR (p.setup_id IS NULL AND s.listed = 1))) AS parts_minor
+		FROM (${plan.sql}) r
+		JOIN setups s ON s.id = r.id JOIN builds b ON b.id = r.build_id LEFT JOIN users u ON u.id = b.owner_id
+		ORDER BY r.score, r.id`,
+		{ replacements: plan.replacements, type: QueryTypes.SELECT }
+	);
 	const results = rows.map((r) => {
-		const d = byId.get(r.id)!;
 		const c: Candidate = {
 			cc: r.cc,
 			exhaust: r.exhaust,
@@ -226,19 +228,19 @@ export async function closeBuilds(
 		return {
 			setupId: r.id,
 			buildId: r.build_id,
-			title: d.title,
-			owner: d.owner ?? 'a member',
-			setup: `${d.position}. ${d.change_note}`,
+			title: r.title,
+			owner: r.owner ?? 'a member',
+			setup: `${r.position}. ${r.change_note}`,
 			score: Number(r.score),
 			reasons: reasons(target, c),
 			bestKmh: r.best === null ? null : Number(r.best),
-			method: d.method,
-			partsMinor: Number(d.parts_minor),
-			currency: d.currency,
+			method: r.method,
+			partsMinor: Number(r.parts_minor),
+			currency: r.currency,
 			cc: r.cc
 		};
 	});
-	return { results, bandCc: band, candidates };
+	return { results, bandCc: plan.band, candidates: rows.length };
 }
 
 /** "What would I get": the gearing ceiling beside what the closest builds measured. */

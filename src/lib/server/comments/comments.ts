@@ -5,7 +5,9 @@ import type { CurrentUser } from '../auth/current-user';
 import { commentsByAccount, commentsByAddress, spend, waitText } from '../auth/limits';
 import { models, type Build, type Comment } from '../db/models';
 import { renderMarkdown } from '../text/markdown';
-import { cautionsFor, readCase } from '../review/cases';
+import { readCase } from '../review/cases';
+import { buildCasesColumn, type CaseState, type Cases } from '../review/standing';
+import { nestedRows, selectColumns } from '../db/nested';
 import { scanText } from '../review/flags';
 import { inTransaction } from '../db/transaction';
 
@@ -39,12 +41,12 @@ const open = (b: Build) => b.publication === 'published' && b.moderation === 'vi
  * has it (reported or flagged and not decided yet); and once taken down, until they have used
  * their one request for another look.
  */
-async function editable(
+function editable(
 	c: Comment,
-	replies: number
-): Promise<{ edit: boolean; secondLook: CommentView['secondLook'] }> {
+	replies: number,
+	kase: CaseState | undefined
+): { edit: boolean; secondLook: CommentView['secondLook'] } {
 	if (c.deletedAt) return { edit: false, secondLook: null };
-	const kase = await readCase({ type: 'comment', id: c.id });
 	const secondLook = c.moderation === 'hidden' ? (kase?.secondLook ?? 'none') : null;
 	return {
 		edit: replies === 0 || Boolean(kase?.onDesk) || secondLook === 'none',
@@ -52,47 +54,61 @@ async function editable(
 	};
 }
 
-export async function listComments(b: Build, me: CurrentUser | null): Promise<CommentView[]> {
-	const { Comment, User } = models();
-	const rows = await Comment.findAll({
-		where: { buildId: b.id },
-		include: [{ model: User, as: 'author', attributes: ['name', 'email'] }],
-		order: [
-			['createdAt', 'ASC'],
-			['id', 'ASC']
-		]
+/** A build's comments with their authors' names, as one column (db/nested.ts; `buildId`). */
+export const commentsColumn = () =>
+	nestedRows(models().Comment, {
+		alias: 'c',
+		join: 'LEFT JOIN users u ON u.id = c.author_id',
+		extra: ['u.name', 'u.email', 'u.id IS NOT NULL'],
+		where: 'c.build_id = :buildId',
+		order: 'c.created_at, c.id'
 	});
-	const cautions = await cautionsFor(
-		'comment',
-		rows.map((r) => r.id)
-	);
+
+type CommentRows = ReturnType<ReturnType<typeof commentsColumn>['read']>;
+
+/** The thread as the reader may see it, from the column above and the desk's cases. */
+export function commentViews(
+	found: CommentRows,
+	cases: Cases,
+	me: CurrentUser | null
+): CommentView[] {
+	const rows = found.rows;
 	const staff = me !== null && roleAllows(me.role, 'moderator');
-	return Promise.all(
-		rows.map(async (c) => {
-			const replies = rows.filter((r) => r.parentId === c.id && !r.deletedAt).length;
-			const mine = me !== null && c.authorId === me.id;
-			const state = c.deletedAt ? 'deleted' : c.moderation === 'hidden' ? 'hidden' : 'shown';
-			const readable = state === 'shown' || (state === 'hidden' && (mine || staff));
-			const rights = mine ? await editable(c, replies) : { edit: false, secondLook: null };
-			return {
-				id: c.id,
-				parentId: c.parentId,
-				setupId: c.setupId,
-				author: c.author ? (c.author.name ?? c.author.email.split('@')[0]) : 'a former member',
-				mine,
-				createdAt: c.createdAt.toISOString(),
-				editedAt: c.editedAt?.toISOString() ?? null,
-				state,
-				html: readable ? renderMarkdown(c.body) : '',
-				body: mine && rights.edit ? c.body : null,
-				hiddenReason: c.hiddenReason,
-				caution: cautions.has(c.id) && state === 'shown',
-				canEdit: rights.edit,
-				secondLook: rights.secondLook,
-				replies
-			};
-		})
+	return rows.map((c, i) => {
+		const [name, email, hasAuthor] = found.extras[i] as [string | null, string | null, number];
+		const kase = cases.get(`comment:${c.id}`);
+		const replies = rows.filter((r) => r.parentId === c.id && !r.deletedAt).length;
+		const mine = me !== null && c.authorId === me.id;
+		const state = c.deletedAt ? 'deleted' : c.moderation === 'hidden' ? 'hidden' : 'shown';
+		const readable = state === 'shown' || (state === 'hidden' && (mine || staff));
+		const rights = mine ? editable(c, replies, kase) : { edit: false, secondLook: null };
+		return {
+			id: c.id,
+			parentId: c.parentId,
+			setupId: c.setupId,
+			author: hasAuthor ? (name ?? (email ?? '').split('@')[0]) : 'a former member',
+			mine,
+			createdAt: c.createdAt.toISOString(),
+			editedAt: c.editedAt?.toISOString() ?? null,
+			state,
+			html: readable ? renderMarkdown(c.body) : '',
+			body: mine && rights.edit ? c.body : null,
+			hiddenReason: c.hiddenReason,
+			caution: Boolean(kase?.caution) && state === 'shown',
+			canEdit: rights.edit,
+			secondLook: rights.secondLook,
+			replies
+		};
+	});
+}
+
+/** A build's thread in one query, for the JSON route. */
+export async function listComments(b: Build, me: CurrentUser | null): Promise<CommentView[]> {
+	const r = await selectColumns(
+		{ comments: commentsColumn(), cases: buildCasesColumn() },
+		{ buildId: b.id }
 	);
+	return commentViews(r.comments, r.cases, me);
 }
 
 async function checkRate(me: CurrentUser, address: string) {
@@ -161,7 +177,8 @@ export async function editComment(me: CurrentUser, commentId: number, body: stri
 		const replies = await models().Comment.count({
 			where: { parentId: c.id, deletedAt: { [Op.is]: null } }
 		});
-		if (!(await editable(c, replies)).edit)
+		const kase = await readCase({ type: 'comment', id: c.id });
+		if (!editable(c, replies, kase ?? undefined).edit)
 			throw new Failure(409, 'Someone has replied, so this comment can no longer be changed.');
 		await c.update({ body, editedAt: now, updatedAt: now });
 		await scanText({ type: 'comment', id: c.id }, me.id, body, now);

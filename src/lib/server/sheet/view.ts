@@ -1,23 +1,41 @@
 import { deriveSetup, setupWarnings } from '../../sheet/derive';
 import { diffSetups } from '../../sheet/diff';
 import type { Units } from '../../sheet/units';
-import type { Build } from '../db/models';
-import * as parts from './parts';
-import * as runs from './runs';
-import * as setups from './setups';
-import * as users from '../auth/users';
+import { models, type Build, type Part, type Photo, type Run, type Setup } from '../db/models';
+import { nestedList } from '../db/nested';
+import { nameColumn } from '../auth/users';
 import { renderMarkdown } from '../text/markdown';
-import { listPhotos } from './photos';
+
+/**
+ * A build's lists as columns of one SELECT (db/nested.ts), for the build page. Replacements:
+ * `buildId`, and `ownerId` for the owner's name (only the name: never the whole user row).
+ */
+export function sheetColumns() {
+	const { Setup, Run, Part, Photo } = models();
+	return {
+		setups: nestedList(Setup, { alias: 's', where: 's.build_id = :buildId', order: 's.position' }),
+		runs: nestedList(Run, { alias: 'r', where: 'r.build_id = :buildId', order: 'r.run_on, r.id' }),
+		parts: nestedList(Part, { alias: 'p', where: 'p.build_id = :buildId', order: 'p.id' }),
+		photos: nestedList(Photo, {
+			alias: 'ph',
+			where: 'ph.build_id = :buildId',
+			order: 'ph.position'
+		}),
+		ownerName: nameColumn(':ownerId')
+	};
+}
+
+export type SheetRows = {
+	setups: Setup[];
+	runs: Run[];
+	parts: Part[];
+	photos: Photo[];
+	ownerName: string | null;
+};
 
 /** Everything the build page shows, as plain data: derived values come from the tuning module. */
-export async function buildView(b: Build, units: Units) {
-	const [setupRows, runRows, partRows, owner, photoRows] = await Promise.all([
-		setups.listForBuild(b.id),
-		runs.listForBuild(b.id),
-		parts.listForBuild(b.id),
-		b.ownerId ? users.read(b.ownerId) : null,
-		listPhotos(b.id)
-	]);
+export function buildView(b: Build, units: Units, rows: SheetRows) {
+	const { setups: setupRows, runs: runRows, parts: partRows, photos: photoRows } = rows;
 	const stock = b.stockSpeedKmh;
 	let prev: Record<string, unknown> | null = null;
 	const setupViews = setupRows.map((s) => {
@@ -70,7 +88,7 @@ export async function buildView(b: Build, units: Units) {
 			id: b.id,
 			title: b.title,
 			ownerId: b.ownerId,
-			ownerName: owner?.name ?? (b.ownerId ? 'a member' : 'a former member'),
+			ownerName: rows.ownerName ?? (b.ownerId ? 'a member' : 'a former member'),
 			storyHtml: renderMarkdown(b.story),
 			chassis: b.chassis,
 			engineFamily: b.engineFamily,
@@ -112,4 +130,4 @@ export async function buildView(b: Build, units: Units) {
 	};
 }
 
-export type BuildView = Awaited<ReturnType<typeof buildView>>;
+export type BuildView = ReturnType<typeof buildView>;

@@ -8,43 +8,37 @@ import * as log from '../review/log';
 import { linkRequest } from './letters';
 import { checkToken, makeToken, type Checked } from './tokens';
 import { inTransaction } from '../db/transaction';
+import { nestedRows } from '../db/nested';
 
 export type LinkDecision = 'approve' | 'decline';
 
-/** The links a build shows: approved ones, with the shop's name and stamp. */
-export async function shownLinks(buildId: number) {
-	const { ShopLink, Shop } = models();
-	const rows = await ShopLink.findAll({
-		where: { buildId, state: 'approved' },
-		include: [{ model: Shop, as: 'shop', where: { moderation: 'visible' } }],
-		order: [['decidedAt', 'ASC']]
+/**
+ * A build's links in one state, with the shop's name and stamp, as one column of the build page's
+ * SELECT (db/nested.ts; `buildId`). Approved links show only shops the desk has not taken down.
+ */
+export function linksColumn(state: 'approved' | 'requested') {
+	const approved = state === 'approved';
+	return nestedRows(models().ShopLink, {
+		alias: 'l',
+		join: `JOIN shops sh ON sh.id = l.shop_id${approved ? " AND sh.moderation = 'visible'" : ''}`,
+		extra: ['sh.name', 'sh.verified_at IS NOT NULL'],
+		where: `l.build_id = :buildId AND l.state = '${state}'`,
+		order: approved ? 'l.decided_at, l.id' : 'l.created_at, l.id'
 	});
-	return rows.map((l) => ({
-		id: l.id,
-		kind: l.kind,
-		shopId: l.shopId,
-		shopName: l.shop!.name,
-		verified: l.shop!.verifiedAt !== null
-	}));
 }
 
-/** Requests waiting for the build owner's answer, with the asking shop. */
-export async function pendingLinks(buildId: number) {
-	const { ShopLink, Shop } = models();
-	const rows = await ShopLink.findAll({
-		where: { buildId, state: 'requested' },
-		include: [{ model: Shop, as: 'shop' }],
-		order: [['createdAt', 'ASC']]
-	});
-	return rows.map((l) => ({
+type LinkRows = ReturnType<ReturnType<typeof linksColumn>['read']>;
+
+/** Links as the build page shows them; a request's note is for the build's owner only. */
+export const linkViews = ({ rows, extras }: LinkRows, withNote = false) =>
+	rows.map((l, i) => ({
 		id: l.id,
 		kind: l.kind,
-		note: l.note,
 		shopId: l.shopId,
-		shopName: l.shop!.name,
-		verified: l.shop!.verifiedAt !== null
+		shopName: extras[i][0] as string,
+		verified: Boolean(extras[i][1]),
+		note: withNote ? l.note : ''
 	}));
-}
 
 /** A shop's links in every state, newest first, for its own page of requests. */
 export async function linksOfShop(shopId: number) {

@@ -8,6 +8,7 @@ import { models, type Shop } from '../db/models';
 import * as log from '../review/log';
 import { deleteAfterCommit } from '../storage/objects';
 import { inTransaction } from '../db/transaction';
+import { parseJson, scalar } from '../db/nested';
 
 export type ShopInput = z.output<typeof shopSchema>;
 
@@ -33,6 +34,24 @@ export async function seesShopDesk(me: CurrentUser): Promise<boolean> {
 		(await models().ShopStaff.count({ where: { userId: me.id } })) > 0
 	);
 }
+
+/**
+ * The shop an account acts for (its own shop page first, else the first it is staff of), as
+ * `{ id, name }` in one column of a page's SELECT (db/nested.ts; replacement `me`).
+ */
+export const actingShopColumn = () =>
+	scalar(
+		`(SELECT JSON_ARRAY(t.id, t.name) FROM (
+			SELECT id, name, 0 AS o, 0 AS k FROM shops WHERE owner_id = :me
+			UNION ALL
+			SELECT sh.id, sh.name, 1, st.id FROM shop_staff st JOIN shops sh ON sh.id = st.shop_id
+			WHERE st.user_id = :me
+		) t ORDER BY t.o, t.k LIMIT 1)`,
+		(v) => {
+			const found = parseJson(v) as [number, string] | null;
+			return found ? { id: found[0], name: found[1] } : null;
+		}
+	);
 
 /** The shop an account acts for: its own shop page first, else the first it is staff of. */
 export async function shopOf(me: CurrentUser): Promise<Shop | null> {

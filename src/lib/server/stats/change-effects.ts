@@ -128,6 +128,17 @@ export async function stepsOf(buildId: number) {
 			'bestRunDensity'
 		]
 	});
+	return stepsFrom(list);
+}
+
+type StepSetup = Parameters<typeof stepRun>[0] & {
+	position: number;
+	changeNote: string;
+	config: Parameters<typeof changeKind>[0];
+};
+
+/** What each step of a sheet did, from its setups in order (the build page reads them once). */
+export function stepsFrom(list: StepSetup[]) {
 	return list.slice(1).map((s, i) => {
 		const prev = list[i];
 		const kind = changeKind(prev.config, s.config);

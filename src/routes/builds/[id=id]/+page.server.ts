@@ -8,80 +8,38 @@ import {
 	itemRefSchema
 } from '$lib/schemas/review';
 import { clock } from '$lib/clock';
-import {
-	createComment,
-	deleteComment,
-	editComment,
-	listComments
-} from '$lib/server/comments/comments';
+import { createComment, deleteComment, editComment } from '$lib/server/comments/comments';
 import { env } from '$lib/server/env';
 import { requireUser } from '$lib/server/guard';
 import { askSecondLook } from '$lib/server/review/desk';
-import { pageStanding } from '$lib/server/review/standing';
 import { parseForm } from '$lib/server/web/plain-form';
-import { decideLink, pendingLinks, shownLinks, unlink } from '$lib/server/shops/links';
-import { shopOf } from '$lib/server/shops/pages';
+import { decideLink, unlink } from '$lib/server/shops/links';
+import { buildPage } from '$lib/server/pages/build-page';
 import { linkDecisionSchema, linkRefSchema } from '$lib/schemas/shops';
 import { readBuild } from '$lib/server/sheet/access';
 import { unitsFor } from '$lib/server/sheet/units';
-import { buildView } from '$lib/server/sheet/view';
-import { stepsOf } from '$lib/server/stats/change-effects';
 import { forPages } from '$lib/server/web/page-failure';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { build, canEdit } = await readBuild(event, Number(event.params.id));
 	const units = unitsFor(event);
-	const me = event.locals.user;
 	const link = new URL(`/builds/${build.id}`, env().ORIGIN).toString();
-	// A small QR code for the printed sheet, so a paper copy leads back to the live one.
-	const qr = await QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' });
-	const mine = me !== null && me.id === build.ownerId;
-	const [view, steps, comments, shops, pendingShops, myShop] = await Promise.all([
-		buildView(build, units),
-		stepsOf(build.id),
-		listComments(build, me),
-		shownLinks(build.id),
-		mine ? pendingLinks(build.id) : [],
-		me && !me.suspension ? shopOf(me) : null
-	]);
-	// A shop that acts here may ask to be named, unless it already is.
-	const canAskLink =
-		myShop !== null &&
-		build.publication === 'published' &&
-		build.moderation === 'visible' &&
-		!shops.some((l) => l.shopId === myShop.id);
-	const standing = await pageStanding(
-		build,
-		view.setups.map((s) => s.id),
-		me
-	);
-	// A setup the desk took down leaves only its reason for readers who may not see it.
-	const takenDown = standing.seesHidden
-		? []
-		: view.setups
-				.filter((s) => s.moderation === 'hidden')
-				.map((s) => ({ id: s.id, position: s.position, hiddenReason: s.hiddenReason }));
-	if (!standing.seesHidden) view.setups = view.setups.filter((s) => s.moderation !== 'hidden');
-	const canComment =
-		build.publication === 'published' && build.moderation === 'visible' && !me?.suspension;
-	return {
-		units,
-		canEdit,
-		link,
-		qr,
-		steps,
-		comments,
-		standing,
-		canComment,
-		takenDown,
-		shops,
-		pendingShops,
-		mine,
-		askAs: canAskLink ? myShop!.name : null,
-		...view
-	};
+	const page = await buildPage(build, event.locals.user, units);
+	return { units, canEdit, link, qr: await qrFor(link), ...page };
 };
+
+// A small QR code for the printed sheet, so a paper copy leads back to the live one. Drawing one
+// costs more than the page's queries, and a link's code never changes: the last few are kept.
+const qrCodes = new Map<string, string>();
+async function qrFor(link: string) {
+	let svg = qrCodes.get(link);
+	if (svg) return svg;
+	svg = await QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' });
+	if (qrCodes.size >= 500) qrCodes.delete(qrCodes.keys().next().value!);
+	qrCodes.set(link, svg);
+	return svg;
+}
 
 /** The build behind an action, readable by the member acting. */
 async function target(event: RequestEvent) {
