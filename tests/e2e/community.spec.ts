@@ -146,6 +146,28 @@ test.describe('filters without JavaScript', () => {
 		await page.getByRole('button', { name: 'Show' }).click();
 		await expect(page).toHaveURL(/exhaust=stock/);
 	});
+
+	test('the speed map shows its chart, marks linked to their builds, and changes on the button', async ({
+		page
+	}) => {
+		await page.goto('/speed-map?x=displacement');
+		const chart = page.locator('.speed-map-chart svg:has([aria-label="dot"])');
+		await expect(chart).toBeVisible();
+		const box = (await chart.boundingBox())!;
+		expect(box.width).toBeGreaterThan(200);
+		const marks = chart.locator('[aria-label="dot"] a');
+		expect(await marks.count()).toBeGreaterThan(5);
+		await expect(marks.first()).toHaveAttribute('href', /^\/builds\/\d+$/);
+		await expect(chart.locator('[aria-label="dot"] title').first()).toContainText(/km\/h/);
+
+		const settings = page.getByRole('form', { name: 'Speed map settings' });
+		await settings.getByLabel('Across').selectOption('elevation');
+		await settings.getByLabel('expansion chamber').check();
+		await settings.getByRole('button', { name: 'Show' }).click();
+		await expect(page).toHaveURL(/x=elevation/);
+		await expect(page).toHaveURL(/pipe=expansion-chamber/);
+		await expect(page.locator('.speed-map-chart figure')).toContainText('Elevation of the run');
+	});
 });
 
 test('side by side picks from cards, a build page and the table, kept across pages, and says when it is full', async ({

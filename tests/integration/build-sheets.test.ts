@@ -165,7 +165,7 @@ describe('Markdown stories', () => {
 		expect(html).toContain('<strong>bold</strong>');
 		const owner = await makeUser();
 		const b = await builds.create(owner.id, { title: 'Story test', story: evil });
-		expect((await buildPage(b, null, 'metric')).build.storyHtml).not.toMatch(
+		expect((await buildPage(b, null, 'metric', new Date())).build.storyHtml).not.toMatch(
 			/<script|onerror|href="javascript:/i
 		);
 	});

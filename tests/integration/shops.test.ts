@@ -89,9 +89,9 @@ describe('shop links: signed, single-use, one-day tokens', () => {
 		expect(r.ok).toBe(true);
 		expect(await state()).toBe('approved');
 		expect(await decideLink({ token: approve }, null, now)).toEqual({ ok: false, problem: 'used' });
-		expect((await buildPage(build, null, 'metric')).shops.map((x) => x.shopName)).toEqual([
-			shop.name
-		]);
+		expect(
+			(await buildPage(build, null, 'metric', new Date())).shops.map((x) => x.shopName)
+		).toEqual([shop.name]);
 
 		const summary = summarise(await linkedBuilds(shop.id));
 		expect(summary.builds).toBe(1);
@@ -99,7 +99,11 @@ describe('shop links: signed, single-use, one-day tokens', () => {
 		// The list shows the stamp only once an admin verified the shop.
 		const stamped = async () =>
 			(
-				await listBuilds(buildListSchema.parse({ q: 'Link token fixture', limit: 50 }), 'metric')
+				await listBuilds(
+					buildListSchema.parse({ q: 'Link token fixture', limit: 50 }),
+					'metric',
+					new Date()
+				)
 			).builds.find((x) => x.id === build.id)?.verifiedShop;
 		expect(await stamped()).toBeNull();
 		await setVerified(await person('admin'), shop.id, true, 'checked', now);

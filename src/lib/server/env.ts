@@ -28,6 +28,11 @@ const schema = z.object({
 		.enum(['true', 'false'])
 		.default('true')
 		.transform((v) => v === 'true'),
+	/**
+	 * The object store's address as readers' browsers reach it (published photos are linked there
+	 * by signed URL); the same as S3_ENDPOINT unless a CDN or another name stands in front.
+	 */
+	S3_PUBLIC_URL: z.string().url().optional(),
 	/** Time limit of one object-store request, in ms; each is tried twice. */
 	S3_TIMEOUT_MS: z.coerce.number().int().positive().default(5000),
 	SMTP_URL: z.string().default('smtp://127.0.0.1:2525'),

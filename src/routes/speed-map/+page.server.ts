@@ -1,6 +1,7 @@
 import { unitsFor } from '$lib/server/sheet/units';
 import { engineFamilies } from '$lib/server/stats/families';
 import { speedMap } from '$lib/server/stats/speed-map';
+import { speedMapMarkup } from '$lib/server/stats/speed-map-svg';
 import { paramsObject, speedMapQuerySchema } from '$lib/schemas/stats';
 import type { PageServerLoad } from './$types';
 
@@ -9,5 +10,6 @@ import type { PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const query = speedMapQuerySchema.parse(paramsObject(event.url.searchParams));
 	const [map, families] = await Promise.all([speedMap(query), engineFamilies()]);
-	return { query, map, families, units: unitsFor(event) };
+	const units = unitsFor(event);
+	return { query, map, families, units, chart: speedMapMarkup(map, units) };
 };

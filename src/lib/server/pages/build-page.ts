@@ -17,7 +17,7 @@ const none = scalar('NULL', () => null);
  * lists, the owner's name, the shops named on it, the thread, the desk's cases, and for the owner
  * the shops' waiting requests. Each domain writes its own column; this only puts them together.
  */
-export async function buildPage(build: Build, me: CurrentUser | null, units: Units) {
+export async function buildPage(build: Build, me: CurrentUser | null, units: Units, now: Date) {
 	const mine = me !== null && me.id === build.ownerId;
 	const found = await selectColumns(
 		{
@@ -30,7 +30,7 @@ export async function buildPage(build: Build, me: CurrentUser | null, units: Uni
 		},
 		{ buildId: build.id, ownerId: build.ownerId, me: me?.id ?? null }
 	);
-	const view = buildView(build, units, found);
+	const view = await buildView(build, units, found, now);
 	const shops = linkViews(found.shown);
 	const myShop = found.actingShop;
 	const standing = pageStanding(

@@ -5,7 +5,7 @@ import { Failure } from '../../failure';
 import { models } from '../db/models';
 import { inTransaction } from '../db/transaction';
 import { checkSetupOf } from './service';
-import { deleteObjects, deleteLater, putObject, StorageDown } from '../storage/objects';
+import { deleteObjects, deleteLater, IMMUTABLE, putObject, StorageDown } from '../storage/objects';
 
 export const PHOTO_MAX_BYTES = 15 * 1024 * 1024;
 export const PHOTO_MAX_COUNT = 12;
@@ -91,8 +91,9 @@ export async function addPhoto(
 	const stem = `builds/${buildId}/photos/${randomUUID()}`;
 	const keys = { displayKey: `${stem}-display.jpg`, thumbKey: `${stem}-thumb.jpg` };
 	try {
-		await putObject(keys.displayKey, display.data, 'image/jpeg');
-		await putObject(keys.thumbKey, thumb, 'image/jpeg');
+		// Keys are never reused, so the store may tell every cache to keep them for good.
+		await putObject(keys.displayKey, display.data, 'image/jpeg', IMMUTABLE);
+		await putObject(keys.thumbKey, thumb, 'image/jpeg', IMMUTABLE);
 		// The count is checked again under a lock on the build row: of several uploads racing for
 		// the last places, only as many as fit are kept.
 		return await inTransaction(async (transaction) => {

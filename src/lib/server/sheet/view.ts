@@ -5,6 +5,7 @@ import { models, type Build, type Part, type Photo, type Run, type Setup } from 
 import { nestedList } from '../db/nested';
 import { nameColumn } from '../auth/users';
 import { renderMarkdown } from '../text/markdown';
+import { signedLink } from '../storage/links';
 
 /**
  * A build's lists as columns of one SELECT (db/nested.ts), for the build page. Replacements:
@@ -34,7 +35,16 @@ export type SheetRows = {
 };
 
 /** Everything the build page shows, as plain data: derived values come from the tuning module. */
-export function buildView(b: Build, units: Units, rows: SheetRows) {
+export async function buildView(b: Build, units: Units, rows: SheetRows, now: Date) {
+	// A published sheet's photos come straight from the store; a draft's stay behind its access rule.
+	const open = b.publication === 'published' && b.moderation === 'visible';
+	const photoLinks = await Promise.all(
+		rows.photos.map(async (p) =>
+			open
+				? { display: await signedLink(p.displayKey, now), thumb: await signedLink(p.thumbKey, now) }
+				: { display: `/api/photos/${p.id}/display`, thumb: `/api/photos/${p.id}/thumb` }
+		)
+	);
 	const { setups: setupRows, runs: runRows, parts: partRows, photos: photoRows } = rows;
 	const stock = b.stockSpeedKmh;
 	let prev: Record<string, unknown> | null = null;
@@ -116,18 +126,17 @@ export function buildView(b: Build, units: Units, rows: SheetRows) {
 			link: p.link,
 			setupId: p.setupId
 		})),
-		photos: photoRows.map((p) => ({
+		photos: photoRows.map((p, i) => ({
 			id: p.id,
 			caption: p.caption,
 			setupId: p.setupId,
 			width: p.width,
 			height: p.height,
-			display: `/api/photos/${p.id}/display`,
-			thumb: `/api/photos/${p.id}/thumb`
+			...photoLinks[i]
 		})),
 		costPerKmhMinor: gain !== null && gain > 0 ? b.partsTotalMinor / gain : null,
 		gainKmh: gain
 	};
 }
 
-export type BuildView = ReturnType<typeof buildView>;
+export type BuildView = Awaited<ReturnType<typeof buildView>>;

@@ -71,13 +71,22 @@ export async function pingStorage(): Promise<void> {
 	await call((c, o) => c.send(new HeadBucketCommand({ Bucket: storage().bucket }), o));
 }
 
-export async function putObject(key: string, body: Uint8Array, contentType: string): Promise<void> {
+/** Objects under keys that are never reused: any cache may keep them for good. */
+export const IMMUTABLE = 'public, max-age=31536000, immutable';
+
+export async function putObject(
+	key: string,
+	body: Uint8Array,
+	contentType: string,
+	cacheControl?: string
+): Promise<void> {
 	const put = new PutObjectCommand({
 		Bucket: storage().bucket,
 		Key: key,
 		Body: body,
 		ContentType: contentType,
-		ContentLength: body.byteLength
+		ContentLength: body.byteLength,
+		CacheControl: cacheControl
 	});
 	await call((c, o) => c.send(put, o));
 }

@@ -25,7 +25,7 @@ export const load: PageServerLoad = async (event) => {
 	const { build, canEdit } = await readBuild(event, Number(event.params.id));
 	const units = unitsFor(event);
 	const link = new URL(`/builds/${build.id}`, env().ORIGIN).toString();
-	const page = await buildPage(build, event.locals.user, units);
+	const page = await buildPage(build, event.locals.user, units, clock());
 	return { units, canEdit, link, qr: await qrFor(link), ...page };
 };
 
