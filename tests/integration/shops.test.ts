@@ -99,11 +99,7 @@ describe('shop links: signed, single-use, one-day tokens', () => {
 		// The list shows the stamp only once an admin verified the shop.
 		const stamped = async () =>
 			(
-				await listBuilds(
-					buildListSchema.parse({ q: 'Link token fixture', limit: 50 }),
-					'metric',
-					new Date()
-				)
+				await listBuilds(buildListSchema.parse({ q: 'Link token fixture', limit: 50 }), 'metric')
 			).builds.find((x) => x.id === build.id)?.verifiedShop;
 		expect(await stamped()).toBeNull();
 		await setVerified(await person('admin'), shop.id, true, 'checked', now);
