@@ -7,6 +7,10 @@ import { closeDb, db } from '../../src/lib/server/db/connection';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { MAX_POINTS, speedMap, xSpread } from '../../src/lib/server/stats/speed-map';
 import { speedMapQuerySchema } from '../../src/lib/schemas/stats';
+import * as builds from '../../src/lib/server/sheet/builds';
+import { saveBuild, setPublication } from '../../src/lib/server/sheet/build-service';
+import { makeUser } from '../support/factories';
+import { publishedBuild } from '../support/moderation-fixtures';
 
 // Against the seeded demo sheets (invented, fixed seed) plus whatever earlier test files added.
 afterAll(closeDb);
@@ -185,6 +189,76 @@ describe('builds list and search', () => {
 		expect(typo.builds.map((b) => b.id)).toEqual(exact.builds.map((b) => b.id));
 		const nothing = await list({ q: 'zzqxv', limit: 10 });
 		expect(nothing.builds).toEqual([]);
+	});
+
+	it('finds, page by page, the builds MariaDB’s own FULLTEXT search finds, in either order', async () => {
+		// The reference: InnoDB's FULLTEXT index over the same columns, each word required and taken
+		// as a prefix (MariaDB Knowledge Base, "MATCH AGAINST", boolean mode "+word*").
+		for (const typed of ['kit', 'cham', 'tuned kit', 'closed course gps', 'dunmore sport']) {
+			const rows = await db().query<{ id: number }>(
+				`SELECT id FROM builds WHERE publication = 'published' AND moderation = 'visible'
+				AND MATCH(title, story, parts_text) AGAINST (:q IN BOOLEAN MODE) ORDER BY id DESC`,
+				{
+					replacements: {
+						q: typed
+							.split(' ')
+							.map((w) => `+${w}*`)
+							.join(' ')
+					},
+					type: QueryTypes.SELECT
+				}
+			);
+			const want = rows.map((r) => Number(r.id));
+			expect(want.length, typed).toBeGreaterThan(0);
+			for (const sort of ['newest', 'fastest'] as const) {
+				const got: number[] = [];
+				let cursor: string | undefined;
+				do {
+					const p = await list({ q: typed, sort, limit: 7, cursor });
+					got.push(...p.builds.map((b) => b.id));
+					cursor = p.next ?? undefined;
+				} while (cursor);
+				if (sort === 'newest') expect(got, typed).toEqual(want);
+				else
+					expect(
+						[...got].sort((a, b) => b - a),
+						typed
+					).toEqual(want);
+			}
+		}
+	});
+
+	it('keeps the word index with the sheet: a new title is found, an unpublished build is not', async () => {
+		const owner = await makeUser();
+		const { build } = await publishedBuild(owner.id, 'Quillwort special');
+		const ids = async (q: string) => (await list({ q })).builds.map((b) => b.id);
+		expect(await ids('quillwort')).toEqual([build.id]);
+		await saveBuild(build.id, build.version, { title: 'Brackenfield special' });
+		expect(await ids('quillwort')).toEqual([]);
+		expect(await ids('brackenf')).toEqual([build.id]);
+		await setPublication((await builds.read(build.id))!, 'draft');
+		expect(await ids('brackenfield')).toEqual([]);
+	});
+
+	it('walks the word index newest first and stops after a page: no sort of every match', async () => {
+		const spy = vi.spyOn(db(), 'query');
+		try {
+			await list({ q: 'kit', limit: 5 });
+			const [sql, options] = spy.mock.calls[1] as unknown as [
+				string,
+				{ replacements: Record<string, unknown> }
+			];
+			spy.mockRestore();
+			const plan = await db().query<{ table: string; key: string; Extra: string | null }>(
+				`EXPLAIN ${sql}`,
+				{ replacements: options.replacements, type: QueryTypes.SELECT }
+			);
+			const walk = plan.find((p) => p.table === 't')!;
+			expect(walk.key).toBe('PRIMARY');
+			expect(walk.Extra ?? '').not.toContain('filesort');
+		} finally {
+			spy.mockRestore();
+		}
 	});
 
 	it('makes the same number of queries for a page of 5 as for a page of 100', async () => {

@@ -4,6 +4,7 @@
 // change kind, most with a speed change that counts; two parts a build on average, named from a
 // vocabulary of a few thousand invented part names; a short story to search.
 import { CHANGE_KINDS } from '../../src/lib/sheet/change-kinds';
+import { buildWords } from '../../src/lib/search/words';
 import { QueryTypes } from 'sequelize';
 import { db } from '../../src/lib/server/db/connection';
 
@@ -117,7 +118,7 @@ export async function seed(N: number, rnd: () => number) {
 	const around = (x: number, spread: number) => x + (rnd() * 2 - 1) * spread;
 	const s = db();
 	await s.query('SET FOREIGN_KEY_CHECKS = 0');
-	for (const t of ['photos', 'parts', 'runs', 'setups', 'builds'])
+	for (const t of ['search_words', 'photos', 'parts', 'runs', 'setups', 'builds'])
 		await s.query(`TRUNCATE TABLE ${t}`);
 	await s.query('SET FOREIGN_KEY_CHECKS = 1');
 	await s.query(
@@ -130,6 +131,7 @@ export async function seed(N: number, rnd: () => number) {
 		const b: string[] = [];
 		const st: string[] = [];
 		const pt: string[] = [];
+		const sw: string[] = [];
 		for (let i = start; i < Math.min(N, start + batch); i++) {
 			const id = i + 1;
 			const cls = rnd();
@@ -168,8 +170,11 @@ export async function seed(N: number, rnd: () => number) {
 				pt.push(`(${++partId}, ${id}, NULL, ${q(cat)}, ${q(name)}, ${c}, NULL, NOW())`);
 			}
 			const story = Array.from({ length: 12 }, () => pick(STORY)).join(' ');
+			const title = `Bench build ${id}: ${pick(MAKERS)} ${Math.round(cc)} cc`;
+			// The word index, as the app's listing refresh writes it.
+			for (const w of buildWords(title, story, names.join(' · '))) sw.push(`(${q(w)}, ${id})`);
 			b.push(
-				`(${id}, '00000000-0000-4000-8000-00000000beef', ${q(`Bench build ${id}: ${pick(MAKERS)} ${Math.round(cc)} cc`)}, ${q(story)}, ${q(names.join(' · '))}, ${q(pipe)}, ${cc.toFixed(2)}, ${elev}, ${q(family)}, ${q(cycle)}, 'published', 'visible', 1, ${setups}, ${top.toFixed(1)}, ${cost}, ${setups}, NOW(), NOW())`
+				`(${id}, '00000000-0000-4000-8000-00000000beef', ${q(title)}, ${q(story)}, ${q(names.join(' · '))}, ${q(pipe)}, ${cc.toFixed(2)}, ${elev}, ${q(family)}, ${q(cycle)}, 'published', 'visible', 1, ${setups}, ${top.toFixed(1)}, ${cost}, ${setups}, NOW(), NOW())`
 			);
 		}
 		await s.query(
@@ -178,12 +183,13 @@ export async function seed(N: number, rnd: () => number) {
 		await s.query(
 			`INSERT INTO setups (id, build_id, position, change_note, config, engine_cycle, listed, any_listed, exhaust_type, displacement_cc, carb_bore_mm, final_drive_ratio, overall_ratio, tyre_circumference_mm, roller_total_g, sea_level_jet, best_run_elevation_m, best_run_kmh, best_run_method, best_run_two_way, best_run_venue, best_run_density, engine_family, prev_setup_id, change_kind, effect_kmh, created_at, updated_at) VALUES ${st.join(',')}`
 		);
+		await s.query(`INSERT IGNORE INTO search_words (word, build_id) VALUES ${sw.join(',')}`);
 		if (pt.length)
 			await s.query(
 				`INSERT INTO parts (id, build_id, setup_id, category, name, cost_minor, link, created_at) VALUES ${pt.join(',')}`
 			);
 	}
-	await s.query('ANALYZE TABLE setups, builds, parts');
+	await s.query('ANALYZE TABLE setups, builds, parts, search_words');
 	await settle();
 	return { setups: setupId, parts: partId };
 }

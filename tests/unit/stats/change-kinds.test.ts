@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { changeKind, CHANGE_KINDS, judgeStep } from '../../../src/lib/sheet/change-kinds';
 import { SETUP_FIELDS } from '../../../src/lib/sheet/setup-fields';
-import { booleanQuery, words } from '../../../src/lib/server/search/words';
+import { booleanQuery, words } from '../../../src/lib/search/words';
 
 // The rules are the project's own (stated on the change-effects page); these pin them down.
 const base = {

@@ -15,6 +15,7 @@ import * as m011 from './migrations/2026.12.02T18.00.00.sessions-and-mail-queue'
 import * as m012 from './migrations/2026.12.02T21.00.00.cheapest-by-currency';
 import * as m013 from './migrations/2026.12.02T21.30.00.no-news-mail';
 import * as m014 from './migrations/2026.12.02T23.40.00.idempotency-keys';
+import * as m015 from './migrations/2026.12.03T02.30.00.search-words';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -33,7 +34,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T18.00.00.sessions-and-mail-queue', ...m011 },
 	{ name: '2026.12.02T21.00.00.cheapest-by-currency', ...m012 },
 	{ name: '2026.12.02T21.30.00.no-news-mail', ...m013 },
-	{ name: '2026.12.02T23.40.00.idempotency-keys', ...m014 }
+	{ name: '2026.12.02T23.40.00.idempotency-keys', ...m014 },
+	{ name: '2026.12.03T02.30.00.search-words', ...m015 }
 ];
 
 export function migrator() {

@@ -1,3 +1,4 @@
+import { refreshWords } from './search-words';
 import { Op, QueryTypes } from 'sequelize';
 import { deriveRun, deriveSetup } from '../../sheet/derive';
 import { changeKind, judgeStep, type StepRun } from '../../sheet/change-kinds';
@@ -127,6 +128,7 @@ export async function refreshListing(buildId: number): Promise<void> {
 			}
 		}
 	);
+	await refreshWords({ ...b.get({ plain: true }), open });
 	await refreshSteps(buildId);
 }
 

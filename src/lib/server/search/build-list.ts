@@ -2,7 +2,7 @@ import { QueryTypes } from 'sequelize';
 import type { BuildListQuery } from '../../schemas/build-list';
 import { EXHAUST_TYPES } from '../../sheet/fields';
 import { toCanonical, type Units } from '../../sheet/units';
-import { booleanQuery } from './words';
+import { WORD_MAX, words } from '../../search/words';
 import { correct } from './vocabulary';
 import { db } from '../db/connection';
 
@@ -40,7 +40,7 @@ const KEY = {
 	cheapest: { col: 'b.parts_total_minor', dir: 'ASC' }
 } as const;
 
-function where(q: BuildListQuery, units: Units, text: string | null) {
+function where(q: BuildListQuery, units: Units) {
 	const w = ["b.publication = 'published'", "b.moderation = 'visible'"];
 	const r: Record<string, unknown> = {};
 	const add = (sql: string, name: string, v: unknown) => {
@@ -65,8 +65,6 @@ function where(q: BuildListQuery, units: Units, text: string | null) {
 	if (q.elevMax !== undefined) add('b.rep_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
 	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
 	if (q.runs === '1') w.push('b.run_count > 0');
-	if (text)
-		add('MATCH(b.title, b.story, b.parts_text) AGAINST (:text IN BOOLEAN MODE)', 'text', text);
 	return { w, r };
 }
 
@@ -95,9 +93,31 @@ function cursorWhere(q: BuildListQuery) {
 	return { sql: `(${col} ${cmp} :ck OR ${after}${nullsAfter})`, r: { ck, cid } };
 }
 
+/** Each typed word as the indexed words it begins ("cham" → chamber, chambers), at most this many. */
+const EXPANSIONS = 20;
+
 /**
- * The page's ids in order, one of three ways:
- * - words to search: the FULLTEXT index finds the matches, which are then filtered and sorted;
+ * The indexed words each typed word begins, in one query: a range of the word index per typed word,
+ * one entry per distinct word (a loose index scan), so it costs the same at any number of builds.
+ */
+async function expand(typed: string[]): Promise<string[][]> {
+	const parts = typed.map(
+		(_, i) =>
+			`(SELECT ${i} AS i, word FROM search_words WHERE word LIKE :p${i} GROUP BY word LIMIT ${EXPANSIONS})`
+	);
+	const rows = await db().query<{ i: number; word: string }>(parts.join(' UNION ALL '), {
+		replacements: Object.fromEntries(typed.map((w, i) => [`p${i}`, `${w.slice(0, WORD_MAX)}%`])),
+		type: QueryTypes.SELECT
+	});
+	return typed.map((_, i) => rows.filter((r) => Number(r.i) === i).map((r) => r.word));
+}
+
+/**
+ * The page's ids in order, one of four ways:
+ * - words to search, newest first: walk the word index (search_words) newest first for each word
+ *   the first typed word may be, every build checked against the other words and the filters, and
+ *   stop after a page; the walks merge into one page. A common word reads about a page of entries;
+ * - words in another order: the builds holding every word, filtered, then sorted;
  * - a pipe or displacement filter: range over builds_list (pipe as a list of points, so the
  *   displacement range applies inside each), which carries every filtered and sorted column, then
  *   sort the matches — index entries only, however many match;
@@ -105,35 +125,62 @@ function cursorWhere(q: BuildListQuery) {
  * (Walking the order with a narrow filter can pass most builds by — the fastest are rarely 50 cc —
  * which is why a filter on the setup's columns starts from those columns instead.)
  */
-async function pageIds(q: BuildListQuery, units: Units, text: string | null) {
-	const { w, r } = where(q, units, text);
+async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null) {
+	const { w, r } = where(q, units);
 	const c = cursorWhere(q);
 	if (c) {
 		w.push(c.sql);
 		Object.assign(r, c.r);
 	}
 	const { col, dir } = KEY[q.sort];
+	const replacements = { ...r, limit: q.limit + 1 };
+	if (terms) {
+		// The typed word with the fewest forms leads; every other must be there too.
+		const order = terms.map((_, i) => i).sort((a, b) => terms[a].length - terms[b].length);
+		const [lead, ...rest] = order;
+		rest.forEach((i) => {
+			w.push(
+				`EXISTS (SELECT 1 FROM search_words t${i} WHERE t${i}.build_id = b.id AND t${i}.word IN (:x${i}))`
+			);
+			Object.assign(replacements, { [`x${i}`]: terms[i] });
+		});
+		if (q.sort === 'newest') {
+			if (c) w.push('t.build_id < :cid');
+			const walks = terms[lead].map((word, k) => {
+				Object.assign(replacements, { [`e${k}`]: word });
+				return `(SELECT STRAIGHT_JOIN t.build_id AS id FROM search_words t JOIN builds b ON b.id = t.build_id
+					WHERE t.word = :e${k} AND ${w.join(' AND ')} ORDER BY t.build_id DESC LIMIT :limit)`;
+			});
+			return db().query<{ id: number; sort_key: number | null }>(
+				`SELECT id, id AS sort_key FROM (${walks.join(' UNION ')}) m ORDER BY id DESC LIMIT :limit`,
+				{ replacements, type: QueryTypes.SELECT }
+			);
+		}
+		w.push(`b.id IN (SELECT t.build_id FROM search_words t WHERE t.word IN (:lead))`);
+		Object.assign(replacements, { lead: terms[lead] });
+	}
 	let index = '';
 	if (
-		!text &&
+		!terms &&
 		LIST_TUNING.filterIndex &&
 		(q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined)
 	) {
 		index = 'FORCE INDEX (builds_list)';
 		if (!q.exhaust) {
 			w.push('b.rep_pipe IN (:pipes)');
-			r.pipes = PIPES;
+			Object.assign(replacements, { pipes: PIPES });
 		}
-	} else if (!text) index = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
+	} else if (!terms) index = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
 	return db().query<{ id: number; sort_key: number | null }>(
 		`SELECT b.id, ${col} AS sort_key FROM builds b ${index} WHERE ${w.join(' AND ')}
 		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
-		{ replacements: { ...r, limit: q.limit + 1 }, type: QueryTypes.SELECT }
+		{ replacements, type: QueryTypes.SELECT }
 	);
 }
 
-async function page(q: BuildListQuery, units: Units, text: string | null) {
-	const ids = await pageIds(q, units, text);
+async function page(q: BuildListQuery, units: Units, terms: string[][] | null) {
+	// A typed word that begins no indexed word: nothing can match.
+	const ids = terms?.some((t) => !t.length) ? [] : await pageIds(q, units, terms);
 	const more = ids.length > q.limit;
 	const mine = ids.slice(0, q.limit);
 	const last = mine.at(-1);
@@ -191,14 +238,15 @@ function toRow(x: Record<string, unknown>): ListRow {
  * known spelling is tried once; `didYouMean` then says what was searched instead.
  */
 export async function listBuilds(q: BuildListQuery, units: Units) {
-	const text = q.q ? booleanQuery(q.q) : null;
+	const typed = q.q ? words(q.q) : [];
 	// Only short words or stopwords: list without searching, and say so.
-	if (q.q && !text) return { ...(await page(q, units, null)), didYouMean: null, ignored: true };
-	const first = await page(q, units, text);
+	if (q.q && !typed.length)
+		return { ...(await page(q, units, null)), didYouMean: null, ignored: true };
+	const first = await page(q, units, typed.length ? await expand(typed) : null);
 	if (!q.q || first.builds.length || q.cursor)
 		return { ...first, didYouMean: null, ignored: false };
 	const fixed = await correct(q.q);
-	const fixedText = fixed ? booleanQuery(fixed) : null;
-	if (!fixed || !fixedText) return { ...first, didYouMean: null, ignored: false };
-	return { ...(await page(q, units, fixedText)), didYouMean: fixed, ignored: false };
+	const fixedWords = fixed ? words(fixed) : [];
+	if (!fixed || !fixedWords.length) return { ...first, didYouMean: null, ignored: false };
+	return { ...(await page(q, units, await expand(fixedWords))), didYouMean: fixed, ignored: false };
 }

@@ -1,12 +1,13 @@
 import Fuse from 'fuse.js';
 import { QueryTypes } from 'sequelize';
 import { db } from '../db/connection';
-import { words } from './words';
+import { words } from '../../search/words';
 
-// Typo tolerance. FULLTEXT (in the builds list query) matches whole words and prefixes only, so a
-// misspelt part name finds nothing. The words of every distinct part name and engine family — a few
-// thousand terms, far fewer than the builds — are held here with a fuse.js index; when a search
-// finds nothing, each unknown word is swapped for its nearest term and the search runs once more.
+// Typo tolerance. The word index (in the builds list query) matches whole words and prefixes only,
+// so a misspelt part name finds nothing. The distinct words of that index — a few thousand, far
+// fewer than the builds, read from it one entry per word (a loose index scan, so this costs the
+// same at a million builds as at a thousand) — are held here with a fuse.js index; when a search
+// finds nothing, each unknown word is swapped for its nearest one and the search runs once more.
 
 const FRESH_MS = 5 * 60_000;
 let held: { at: number; known: Set<string>; fuse: Fuse<string> } | null = null;
@@ -14,13 +15,10 @@ let held: { at: number; known: Set<string>; fuse: Fuse<string> } | null = null;
 async function load(now: number) {
 	if (held && now - held.at < FRESH_MS) return held;
 	const rows = await db().query<{ t: string }>(
-		`SELECT DISTINCT p.name AS t FROM parts p JOIN builds b ON b.id = p.build_id
-			WHERE b.publication = 'published' AND b.moderation = 'visible'
-		UNION SELECT DISTINCT engine_family FROM builds WHERE publication = 'published' AND engine_family <> ''
-		LIMIT 20000`,
+		'SELECT word AS t FROM search_words GROUP BY word LIMIT 50000',
 		{ type: QueryTypes.SELECT }
 	);
-	const known = new Set(rows.flatMap((r) => words(r.t)));
+	const known = new Set(rows.map((r) => r.t));
 	const list = [...known];
 	held = {
 		at: now,

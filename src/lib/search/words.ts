@@ -17,3 +17,11 @@ export function booleanQuery(text: string): string | null {
 	const ws = words(text);
 	return ws.length ? ws.map((w) => `+${w}*`).join(' ') : null;
 }
+
+/** The longest word kept in the search index; longer ones are cut (and typed ones the same way). */
+export const WORD_MAX = 40;
+
+/** The distinct words a build is found by: those of its title, story and part names. */
+export function buildWords(title: string, story: string, partsText: string): string[] {
+	return [...new Set(words(`${title} ${story} ${partsText}`).map((w) => w.slice(0, WORD_MAX)))];
+}
