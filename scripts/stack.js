@@ -39,7 +39,7 @@ if (mode === 'test') {
 }
 await ensureDebianPackages([
 	{ bin: 'mariadbd', pkg: 'mariadb-server' },
-	...(mode === 'test' ? [{ bin: 'chromium', pkg: 'chromium' }] : [])
+	...(mode === 'test' || mode === 'perf' ? [{ bin: 'chromium', pkg: 'chromium' }] : [])
 ]);
 
 fs.mkdirSync(e.RUN_DIR, { recursive: true });
@@ -54,6 +54,8 @@ children.push({ name: 'mariadb', ...dbServer });
 console.log(`· MariaDB on 127.0.0.1:${e.DB_PORT}, database ${e.DB_NAME}`);
 if (mode === 'perf') {
 	await tsx('scripts/migrate.ts', 'migrations');
+	// The HTTP stage serves the production build through the production entry.
+	await build();
 	console.log('\n▸ benchmark');
 	const code = await run(
 		process.execPath,

@@ -1,11 +1,15 @@
 // `npm run perf`: seeds N synthetic published builds (fixed seed) into the benchmark database and
-// times close builds (with the naive baseline), the builds list, the speed map, change effects and
-// search, each through the function its route calls. Figures to the console and to a JSON file.
+// times close builds (with two baselines), the builds list, the speed map, change effects and
+// search, each through the function its route calls; then the same app over HTTP (the production
+// entry under autocannon) and what each page costs a phone. Figures to the console and to JSON.
 import fs from 'node:fs';
 import os from 'node:os';
 import { closeDb } from '../../src/lib/server/db/connection';
+import { startApp } from '../security/support/app';
 import { benchClose } from './close-builds';
 import { benchCommunity } from './community';
+import { benchHttp } from './http';
+import { benchPageWeight } from './page-weight';
 import { mulberry32, seed } from './seed';
 
 const quick = process.argv.includes('--quick');
@@ -14,10 +18,12 @@ const RUNS = quick ? 40 : 200;
 const NAIVE_RUNS = quick ? 10 : 40;
 const out = process.env.PERF_OUT ?? (quick ? '.data/perf-quick.json' : 'tests/perf/last-run.json');
 const ms = (x: number) => Number(x.toFixed(2));
-const fig = (t: { p50: number; p95: number; runs: number }) => ({
+const fig = (t: { p50: number; p95: number; p99: number; max: number; runs: number }) => ({
 	runs: t.runs,
 	p50Ms: ms(t.p50),
-	p95Ms: ms(t.p95)
+	p95Ms: ms(t.p95),
+	p99Ms: ms(t.p99),
+	maxMs: ms(t.max)
 });
 
 const t0 = performance.now();
@@ -25,6 +31,36 @@ const seeded = await seed(N, mulberry32(424242));
 const seedSeconds = (performance.now() - t0) / 1000;
 const close = await benchClose(mulberry32(7), RUNS, NAIVE_RUNS);
 const community = await benchCommunity(mulberry32(11), RUNS);
+
+// The quick run checks that the stages work (one short round), not their figures.
+const app = await startApp(Number(process.env.PERF_HTTP_PORT ?? 3201));
+let http: Awaited<ReturnType<typeof benchHttp>>;
+let pages: Awaited<ReturnType<typeof benchPageWeight>>;
+try {
+	http = await benchHttp(app, {
+		rounds: quick ? 1 : 3,
+		seconds: quick ? 1 : 10,
+		warmupSeconds: quick ? 1 : 3,
+		connections: quick ? 10 : 50
+	});
+	pages = await benchPageWeight(app.origin, http.pages);
+} finally {
+	await app.stop();
+}
+
+const TARGETS = {
+	at: 100_000,
+	closeBuildsP95Ms: 25,
+	ratio: 20,
+	listP95Ms: 50,
+	speedMapP95Ms: 100,
+	changeEffectsP95Ms: 150,
+	searchP95Ms: 25,
+	buildPageOfStatic: 0.1,
+	readP99Ms: 300,
+	pageJsKb: 80,
+	pageTbtMs: 200
+};
 
 const result = {
 	date: new Date().toISOString(),
@@ -41,38 +77,63 @@ const result = {
 	seedSeconds: Number(seedSeconds.toFixed(1)),
 	closeBuilds: fig(close.ours),
 	naive: fig(close.slow),
+	sameSqlNoBand: fig(close.sameSql),
 	ratioNaiveOverOurs: Number((close.slow.p50 / close.ours.p50).toFixed(1)),
+	ratioSameSqlOverOurs: Number((close.sameSql.p50 / close.ours.p50).toFixed(1)),
 	list: fig(community.list),
 	speedMap: fig(community.speedMap),
 	changeEffects: fig(community.changeEffects),
 	search: fig(community.search),
 	vocabularyLoadMs: ms(community.vocabularyMs),
-	targets: {
-		at: 100_000,
-		closeBuildsP95Ms: 25,
-		ratio: 20,
-		listP95Ms: 50,
-		speedMapP95Ms: 100,
-		changeEffectsP95Ms: 150,
-		searchP95Ms: 50
-	}
+	http: { ...http, pages: undefined },
+	pageWeight: pages,
+	targets: TARGETS
 };
-const row = (f: { p50Ms: number; p95Ms: number; runs: number }, target: number | null) => ({
+
+const row = (f: ReturnType<typeof fig>, target: number | null) => ({
 	p50_ms: f.p50Ms,
 	p95_ms: f.p95Ms,
+	p99_ms: f.p99Ms,
+	max_ms: f.maxMs,
 	runs: f.runs,
 	p95_target_ms: target ?? '—'
 });
 console.table({
-	'close builds (ours)': row(result.closeBuilds, 25),
+	'close builds (ours)': row(result.closeBuilds, TARGETS.closeBuildsP95Ms),
 	'naive (all rows into Node)': row(result.naive, null),
-	'builds list, 3 filters': row(result.list, 50),
-	'speed map': row(result.speedMap, 100),
-	'change effects': row(result.changeEffects, 150),
-	search: row(result.search, 50)
+	'same scoring SQL, no band': row(result.sameSqlNoBand, null),
+	'builds list, 3 filters': row(result.list, TARGETS.listP95Ms),
+	'speed map': row(result.speedMap, TARGETS.speedMapP95Ms),
+	'change effects': row(result.changeEffects, TARGETS.changeEffectsP95Ms),
+	search: row(result.search, TARGETS.searchP95Ms)
 });
 console.log(
-	`builds ${N} (setups ${seeded.setups}, parts ${seeded.parts}), naive/ours ${result.ratioNaiveOverOurs}×, vocabulary loaded in ${result.vocabularyLoadMs} ms, seeded in ${result.seedSeconds} s`
+	`builds ${N} (setups ${seeded.setups}, parts ${seeded.parts}), naive/ours ${result.ratioNaiveOverOurs}×, same SQL without the band/ours ${result.ratioSameSqlOverOurs}×, vocabulary loaded in ${result.vocabularyLoadMs} ms, seeded in ${result.seedSeconds} s`
+);
+console.log(
+	`\nHTTP: ${http.connections} connections, ${http.seconds} s a route, ${http.rounds} round(s), medians; static asset ${http.staticAsset} at ${http.staticReqPerS} req/s`
+);
+console.table(
+	Object.fromEntries(
+		http.routes.map((r) => [
+			r.route,
+			{
+				'req/s': r.reqPerS,
+				'of static': `${(r.ofStatic * 100).toFixed(1)} %`,
+				p50_ms: r.p50Ms,
+				p99_ms: r.p99Ms,
+				max_ms: r.maxMs,
+				errors: r.errors,
+				non2xx: r.non2xx
+			}
+		])
+	)
+);
+console.log('\nPages on a phone (390 px, CPU 4× slower):');
+console.table(
+	Object.fromEntries(
+		pages.map((p) => [p.page, { js_kB: p.jsKb, tbt_ms: p.tbtMs, scripts: p.scripts }])
+	)
 );
 fs.writeFileSync(out, JSON.stringify(result, null, 2) + '\n');
 console.log(`PERF JSON ${out}`);

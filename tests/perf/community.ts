@@ -6,7 +6,8 @@ import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { pairsFor, summarise } from '../../src/lib/server/stats/change-effects';
 import { speedMap } from '../../src/lib/server/stats/speed-map';
 import { CHANGE_KINDS, type ChangeKind } from '../../src/lib/sheet/change-kinds';
-import { speedMapQuerySchema, SPEED_MAP_X } from '../../src/lib/schemas/stats';
+import { speedMapQuerySchema } from '../../src/lib/schemas/stats';
+import { SPEED_MAP_X } from '../../src/lib/stats/speed-map-axes';
 import { FAMILIES, MAKERS } from './seed';
 import { time } from './timing';
 

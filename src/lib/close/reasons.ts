@@ -1,4 +1,5 @@
 // Why a close build is close, in words a tuner uses.
+import { grouped } from '../intl';
 
 export type Target = {
 	cc?: number;
@@ -26,8 +27,7 @@ const PIPE: Record<string, string> = {
 	sport: 'sport silencer',
 	'expansion-chamber': 'expansion chamber'
 };
-const n = (x: number, d = 0) =>
-	x.toLocaleString('en-GB', { maximumFractionDigits: d, minimumFractionDigits: d });
+const n = (x: number, d = 0) => grouped(x, d);
 
 export function reasons(t: Target, c: Candidate): string[] {
 	const out: string[] = [];

@@ -11,12 +11,6 @@ const num = (min: number, max: number) =>
 		)
 		.catch(undefined);
 
-export const SORTS = [
-	{ value: 'newest', label: 'newest first' },
-	{ value: 'fastest', label: 'fastest first' },
-	{ value: 'cheapest', label: 'cheapest parts first' }
-] as const;
-
 export const buildListSchema = z.object({
 	q: z.string().trim().max(80).optional().catch(undefined),
 	cycle: z.enum(['two-stroke', 'four-stroke']).optional().catch(undefined),
@@ -44,11 +38,3 @@ export const buildListSchema = z.object({
 	limit: z.coerce.number().int().min(1).max(100).default(24).catch(24)
 });
 export type BuildListQuery = z.infer<typeof buildListSchema>;
-
-/** The query string for a list state (empty values left out), for links and fetches. */
-export function listParams(q: Partial<Record<keyof BuildListQuery, unknown>>, drop: string[] = []) {
-	const p = new URLSearchParams();
-	for (const [k, v] of Object.entries(q))
-		if (v !== undefined && v !== null && v !== '' && !drop.includes(k)) p.set(k, String(v));
-	return p;
-}

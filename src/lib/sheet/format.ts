@@ -1,3 +1,4 @@
+import { money } from '../intl';
 import { RUN_METHODS, type Field } from './fields';
 import { PLACES, show, type Units } from './units';
 
@@ -22,7 +23,7 @@ export function formatField(f: Field, v: unknown, units: Units): string {
 
 /** Money in minor units as "€ 129.90"-style text, via the platform's currency formatting. */
 export function formatMoney(minor: number, currency: string): string {
-	return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 100);
+	return money(minor, currency);
 }
 
 /** How a run was measured, in words ("phone GPS", never the stored code). */

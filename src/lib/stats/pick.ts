@@ -1,4 +1,4 @@
-import { z } from 'zod';
+// No zod here: this module is in every page's scripts (the side-by-side tray).
 
 /** How many builds or setups fit side by side. */
 export const SIDE_BY_SIDE_MAX = 4;
@@ -14,11 +14,3 @@ export function parseIds(s: string | undefined): number[] {
 		)
 	];
 }
-
-/** The first four ids of a list (the page says how many more were left out). */
-export const idList = z
-	.string()
-	.optional()
-	.transform((s) => parseIds(s).slice(0, SIDE_BY_SIDE_MAX));
-
-export const sideBySideQuerySchema = z.object({ builds: idList, setups: idList });

@@ -1,6 +1,6 @@
 import * as Plot from '@observablehq/plot';
 import type { SpeedMap } from '../server/stats/speed-map';
-import { SPEED_MAP_X } from '../schemas/stats';
+import { SPEED_MAP_X } from './speed-map-axes';
 import { PIPE_STYLE, pipeLabel } from './pipes';
 import { toShown, UNIT, type Units } from '../sheet/units';
 

@@ -1,7 +1,8 @@
 import { unitsFor } from '$lib/server/sheet/units';
 import { loadColumns } from '$lib/server/stats/side-by-side';
 import { sideBySide } from '$lib/sheet/side-by-side';
-import { parseIds, SIDE_BY_SIDE_MAX, sideBySideQuerySchema } from '$lib/stats/pick';
+import { parseIds, SIDE_BY_SIDE_MAX } from '$lib/stats/pick';
+import { sideBySideQuerySchema } from '$lib/schemas/side-by-side';
 import type { PageServerLoad } from './$types';
 
 // Public; each build's own visibility rule still applies (drafts only for their owner).

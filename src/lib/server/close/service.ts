@@ -91,7 +91,14 @@ export async function targetFromBuild(
  */
 export async function planClose(
 	target: Target,
-	opts: { cycle: string; all?: boolean; limit: number; excludeBuild?: number }
+	opts: {
+		cycle: string;
+		all?: boolean;
+		limit: number;
+		excludeBuild?: number;
+		/** The benchmark's fair baseline turns the band off: the same scoring over every setup. */
+		prefilter?: boolean;
+	}
 ) {
 	const flag = opts.all ? 'any_listed' : 'listed';
 	const index = opts.all ? 'setups_close_all' : 'setups_close_representative';
@@ -153,7 +160,7 @@ export async function planClose(
 			repl[`hi${p.key}`] = centre + (band ?? 0);
 		}
 	// The last plan (no band, any pipe) needs no count: it is what is left.
-	const probed = plans.slice(0, -1);
+	const probed = opts.prefilter === false ? [] : plans.slice(0, -1);
 	let plan = plans[plans.length - 1];
 	if (probed.length) {
 		const counts = probed.map(

@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { EXHAUST_TYPES } from '../../sheet/fields';
-import { METHODS, SPEED_MAP_X, type SpeedMapQuery } from '../../schemas/stats';
+import type { SpeedMapQuery } from '../../schemas/stats';
+import { METHODS, SPEED_MAP_X } from '../../stats/speed-map-axes';
 import { db } from '../db/connection';
 
 // The speed map's data: best measured speed against one setup column, one mark per published build

@@ -1,0 +1,211 @@
+// The HTTP stage of `npm run perf`: the production build, served by the production entry
+// (scripts/production.js: compression, no fakes), loaded with autocannon. Each round measures a
+// static asset from the same process first, then every route, each after a warm-up; a route's rate
+// is read against the static rate of its own round. Medians of the rounds are reported.
+import autocannon, { type Result } from 'autocannon';
+import { QueryTypes } from 'sequelize';
+import { db } from '../../src/lib/server/db/connection';
+import * as users from '../../src/lib/server/auth/users';
+import * as builds from '../../src/lib/server/sheet/builds';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { setPublication } from '../../src/lib/server/sheet/build-service';
+import { Client, type App } from '../security/support/app';
+import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
+
+export type HttpFigure = {
+	route: string;
+	reqPerS: number;
+	ofStatic: number;
+	p50Ms: number;
+	p99Ms: number;
+	maxMs: number;
+	errors: number;
+	non2xx: number;
+};
+
+type Route = { name: string; path: string; headers?: Record<string, string>; write?: boolean };
+
+const median = (xs: number[]) => {
+	const s = [...xs].sort((a, b) => a - b);
+	return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+};
+
+/** What the routes need: a build with five setups, a member who owns builds to save, a session. */
+async function prepare(app: App, connections: number) {
+	const password = 'bench password, long enough';
+	const email = `bench-writer-${Date.now()}@perf.squishline.test`;
+	const member = await users.create({ email, name: 'Bench writer', password, verified: true });
+	const five = await builds.create(member.id, {
+		title: 'Bench build with five setups',
+		story: 'Five setups, each with two runs.'
+	});
+	for (let k = 0; k < 5; k++) {
+		const s = (await saveSetup(five.id, {
+			...FIXTURE_SETUP,
+			mainJet: 90 + 2 * k,
+			changeNote: `Main jet ${90 + 2 * k}`
+		})) as { id: number };
+		await saveRun(five.id, s.id, fixtureRun(70 + k));
+		await saveRun(five.id, s.id, fixtureRun(69 + k));
+	}
+	await setPublication((await builds.read(five.id))!, 'published');
+	// One setup per connection to save over and over, so no two connections race for a version.
+	const own = await db().query<{ id: number; build_id: number }>(
+		`SELECT s.id, s.build_id FROM setups s WHERE s.position = 1 AND s.build_id BETWEEN 1 AND :n`,
+		{ replacements: { n: connections }, type: QueryTypes.SELECT }
+	);
+	await db().query('UPDATE builds SET owner_id = :me WHERE id BETWEEN 1 AND :n', {
+		replacements: { me: member.id, n: connections }
+	});
+	const c = new Client(app.origin);
+	const signedIn = await c.signIn(email, password);
+	if (!c.sessionCookies().size)
+		throw new Error(
+			`bench sign-in made no session (${signedIn.status} ${signedIn.headers.get('location')})`
+		);
+	const cookie = [...c.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+	const home = await (await fetch(app.origin)).text();
+	const asset = home.match(/\/_app\/immutable\/[^"']+\.css/)?.[0];
+	if (!asset) throw new Error('no static asset found on the home page');
+	const three = await db().query<{ id: number }>(
+		"SELECT id FROM builds WHERE publication = 'published' ORDER BY id DESC LIMIT 3",
+		{ type: QueryTypes.SELECT }
+	);
+	return { five: five.id, own, cookie, asset, three: three.map((r) => r.id) };
+}
+
+function routes(p: Awaited<ReturnType<typeof prepare>>): Route[] {
+	return [
+		{ name: 'home', path: '/' },
+		{ name: 'builds, filtered', path: '/builds?exhaust=expansion-chamber&ccMin=65&ccMax=75' },
+		{ name: 'build page, 5 setups', path: `/builds/${p.five}` },
+		{ name: 'close builds page', path: '/close?cc=68&exhaust=expansion-chamber&carb=17' },
+		{ name: 'speed map', path: '/speed-map?x=displacement' },
+		{ name: 'side by side, 3', path: `/side-by-side?builds=${p.three.join(',')}` },
+		{ name: 'search', path: '/builds?q=chamber' },
+		{ name: 'GET /api/builds', path: '/api/builds?exhaust=sport' },
+		{ name: 'GET /api/builds/close', path: '/api/builds/close?cc=50&carb=12' },
+		{ name: 'GET /api/stats/speed-map', path: '/api/stats/speed-map?x=final-drive' },
+		{ name: 'GET /api/stats/change-effects', path: '/api/stats/change-effects' },
+		{ name: 'save a setup (signed in)', path: '/api/builds/:id/setups/:setup', write: true }
+	];
+}
+
+async function load(
+	app: App,
+	r: Route,
+	p: Awaited<ReturnType<typeof prepare>>,
+	connections: number,
+	seconds: number,
+	versions = new Map<number, number>()
+): Promise<Result> {
+	const common = {
+		url: app.origin,
+		connections,
+		duration: seconds,
+		headers: { 'accept-encoding': 'br, gzip' }
+	};
+	if (!r.write) return autocannon({ ...common, requests: [{ method: 'GET', path: r.path }] });
+	let next = 0;
+	return autocannon({
+		...common,
+		requests: [
+			{
+				method: 'PATCH',
+				setupRequest: (req, ctx) => {
+					if (ctx.setup === undefined) {
+						const mine = p.own[next++ % p.own.length];
+						Object.assign(ctx, {
+							setup: mine.id,
+							build: mine.build_id,
+							version: versions.get(mine.id) ?? 0
+						});
+					}
+					ctx.jet = ((ctx.jet as number | undefined) ?? 80) + 1;
+					return {
+						...req,
+						path: `/api/builds/${ctx.build}/setups/${ctx.setup}`,
+						headers: {
+							...req.headers,
+							cookie: p.cookie,
+							origin: app.origin,
+							'content-type': 'application/json'
+						},
+						body: JSON.stringify({ version: ctx.version, mainJet: 80 + ((ctx.jet as number) % 40) })
+					};
+				},
+				onResponse: (status, body, ctx) => {
+					if (status === 200) ctx.version = (JSON.parse(body) as { version: number }).version;
+				}
+			}
+		]
+	});
+}
+
+/** Versions as they stand, so a round starts from what the last one left. */
+async function syncVersions(p: Awaited<ReturnType<typeof prepare>>) {
+	const rows = await db().query<{ id: number; version: number }>(
+		'SELECT id, version FROM setups WHERE id IN (:ids)',
+		{ replacements: { ids: p.own.map((o) => o.id) }, type: QueryTypes.SELECT }
+	);
+	return new Map(rows.map((r) => [r.id, r.version]));
+}
+
+export async function benchHttp(
+	app: App,
+	opts: { rounds: number; seconds: number; warmupSeconds: number; connections: number }
+) {
+	{
+		const p = await prepare(app, opts.connections);
+		const list = routes(p);
+		const runs = new Map<string, { rate: number; ratio: number; r: Result }[]>();
+		const statics: number[] = [];
+		for (let round = 0; round < opts.rounds; round++) {
+			const asset: Route = { name: 'static asset', path: p.asset };
+			await load(app, asset, p, opts.connections, opts.warmupSeconds);
+			const st = await load(app, asset, p, opts.connections, opts.seconds);
+			statics.push(st.requests.average);
+			for (const r of list) {
+				const versions = r.write ? await syncVersions(p) : undefined;
+				await load(app, r, p, opts.connections, opts.warmupSeconds, versions);
+				const got = await load(
+					app,
+					r,
+					p,
+					opts.connections,
+					opts.seconds,
+					r.write ? await syncVersions(p) : undefined
+				);
+				const entry = {
+					rate: got.requests.average,
+					ratio: got.requests.average / st.requests.average,
+					r: got
+				};
+				runs.set(r.name, [...(runs.get(r.name) ?? []), entry]);
+			}
+		}
+		const figures: HttpFigure[] = list.map((r) => {
+			const xs = runs.get(r.name)!;
+			return {
+				route: r.name,
+				reqPerS: Number(median(xs.map((x) => x.rate)).toFixed(1)),
+				ofStatic: Number(median(xs.map((x) => x.ratio)).toFixed(4)),
+				p50Ms: median(xs.map((x) => x.r.latency.p50)),
+				p99Ms: median(xs.map((x) => x.r.latency.p99)),
+				maxMs: Math.max(...xs.map((x) => x.r.latency.max)),
+				errors: xs.reduce((a, x) => a + x.r.errors + x.r.timeouts, 0),
+				non2xx: xs.reduce((a, x) => a + x.r.non2xx, 0)
+			};
+		});
+		return {
+			connections: opts.connections,
+			seconds: opts.seconds,
+			rounds: opts.rounds,
+			staticAsset: p.asset,
+			staticReqPerS: Number(median(statics).toFixed(1)),
+			routes: figures,
+			/** The HTML pages among the routes, for the page-weight stage. */
+			pages: list.filter((r) => !r.write && !r.path.startsWith('/api/'))
+		};
+	}
+}
