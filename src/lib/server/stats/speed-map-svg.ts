@@ -2,13 +2,13 @@ import { createHash } from 'node:crypto';
 import { parseHTML } from 'linkedom';
 import { drawSpeedMap } from '../../stats/speed-map-plot';
 import type { Units } from '../../sheet/units';
+import { recent } from '../../recent';
 import type { SpeedMap } from './speed-map';
 
 // Drawing takes tens of milliseconds for a thousand marks, and most readers open the same few
 // maps: drawings are kept by what they show (a hash of the map's data and the units), so a
 // changed map is drawn anew and an unchanged one never is.
-const drawn = new Map<string, string>();
-const KEEP = 64;
+const drawn = recent<string>(64);
 
 /**
  * The speed map as markup, drawn on the server into linkedom's document by the same function the
@@ -16,16 +16,8 @@ const KEEP = 64;
  */
 export function speedMapMarkup(map: SpeedMap, units: Units): string {
 	const key = createHash('sha1').update(units).update(JSON.stringify(map)).digest('base64url');
-	const found = drawn.get(key);
-	if (found !== undefined) {
-		// Most recently used last, so the oldest goes first when the store is full.
-		drawn.delete(key);
-		drawn.set(key, found);
-		return found;
-	}
-	const { document } = parseHTML('<!doctype html><html><head></head><body></body></html>');
-	const markup = drawSpeedMap(map, units, document as unknown as Document).outerHTML;
-	if (drawn.size >= KEEP) drawn.delete(drawn.keys().next().value!);
-	drawn.set(key, markup);
-	return markup;
+	return drawn(key, () => {
+		const { document } = parseHTML('<!doctype html><html><head></head><body></body></html>');
+		return drawSpeedMap(map, units, document as unknown as Document).outerHTML;
+	});
 }

@@ -1,6 +1,8 @@
+import { createHash } from 'node:crypto';
 import DOMPurify from 'isomorphic-dompurify';
 import { marked } from 'marked';
 import { env } from '../env';
+import { recent } from '../../recent';
 
 // Member-written Markdown (stories, comments, shop pages, the desk's view of them) as HTML that
 // can only be text: an allow-list of the elements Markdown itself produces, no `style`, `class`
@@ -27,7 +29,18 @@ function ownImagePath(src: string): string | null {
 	}
 }
 
+// Sanitising goes through a whole DOM (jsdom) and cost the build page most of its time; the result
+// depends on the text alone, so recent results are kept, by a hash of the text.
+const rendered = recent<string>(2000);
+
 export function renderMarkdown(source: string): string {
+	const key = createHash('sha1')
+		.update(source ?? '')
+		.digest('base64url');
+	return rendered(key, () => sanitise(source));
+}
+
+function sanitise(source: string): string {
 	const html = marked.parse(source ?? '', { async: false, gfm: true, breaks: false });
 	const fragment = DOMPurify.sanitize(html, {
 		ALLOWED_TAGS: TAGS,

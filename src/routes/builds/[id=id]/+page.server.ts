@@ -8,6 +8,7 @@ import {
 	itemRefSchema
 } from '$lib/schemas/review';
 import { clock } from '$lib/clock';
+import { recent } from '$lib/recent';
 import { createComment, deleteComment, editComment } from '$lib/server/comments/comments';
 import { env } from '$lib/server/env';
 import { requireUser } from '$lib/server/guard';
@@ -31,15 +32,9 @@ export const load: PageServerLoad = async (event) => {
 
 // A small QR code for the printed sheet, so a paper copy leads back to the live one. Drawing one
 // costs more than the page's queries, and a link's code never changes: the last few are kept.
-const qrCodes = new Map<string, string>();
-async function qrFor(link: string) {
-	let svg = qrCodes.get(link);
-	if (svg) return svg;
-	svg = await QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' });
-	if (qrCodes.size >= 500) qrCodes.delete(qrCodes.keys().next().value!);
-	qrCodes.set(link, svg);
-	return svg;
-}
+const qrCodes = recent<Promise<string>>(500);
+const qrFor = (link: string) =>
+	qrCodes(link, () => QRCode.toString(link, { type: 'svg', margin: 0, errorCorrectionLevel: 'M' }));
 
 /** The build behind an action, readable by the member acting. */
 async function target(event: RequestEvent) {
