@@ -72,7 +72,12 @@ async function perfSmoke(env) {
 			r.naive?.p50Ms,
 			r.ratioNaiveOverOurs,
 			...['list', 'speedMap', 'changeEffects', 'search'].flatMap((k) => [r[k]?.p50Ms, r[k]?.p95Ms])
-		].every(Number.isFinite);
+		].every(Number.isFinite) &&
+		// The HTTP stage answered every route, and the page stage measured every page.
+		r.http?.routes?.length > 0 &&
+		r.http.routes.every((x) => Number.isFinite(x.reqPerS) && x.reqPerS > 0) &&
+		r.pageWeight?.length > 0 &&
+		r.pageWeight.every((x) => Number.isFinite(x.jsKb) && Number.isFinite(x.tbtMs));
 	if (!ok) console.error('✗ the benchmark smoke run failed or wrote malformed figures');
 	return { name: 'perf smoke', code: ok ? 0 : 1, passed: ok ? 1 : 0, failed: ok ? 0 : 1 };
 }

@@ -32,20 +32,23 @@ const seedSeconds = (performance.now() - t0) / 1000;
 const close = await benchClose(mulberry32(7), RUNS, NAIVE_RUNS);
 const community = await benchCommunity(mulberry32(11), RUNS);
 
-// The quick run checks that the stages work (one short round), not their figures.
-const app = await startApp(Number(process.env.PERF_HTTP_PORT ?? 3201));
-let http: Awaited<ReturnType<typeof benchHttp>>;
-let pages: Awaited<ReturnType<typeof benchPageWeight>>;
-try {
-	http = await benchHttp(app, {
-		rounds: quick ? 1 : 3,
-		seconds: quick ? 1 : 10,
-		warmupSeconds: quick ? 1 : 3,
-		connections: quick ? 10 : 50
-	});
-	pages = await benchPageWeight(app.origin, http.pages);
-} finally {
-	await app.stop();
+// The quick run checks that the stages work (one short round), not their figures. PERF_HTTP=0
+// leaves the HTTP and page stages out (the run at a million builds measures the functions).
+let http: Awaited<ReturnType<typeof benchHttp>> | null = null;
+let pages: Awaited<ReturnType<typeof benchPageWeight>> = [];
+if (process.env.PERF_HTTP !== '0') {
+	const app = await startApp(Number(process.env.PERF_HTTP_PORT ?? 3201));
+	try {
+		http = await benchHttp(app, {
+			rounds: quick ? 1 : 3,
+			seconds: quick ? 1 : 10,
+			warmupSeconds: quick ? 1 : 3,
+			connections: quick ? 10 : 50
+		});
+		pages = await benchPageWeight(app.origin, http.pages, quick ? 1 : 3);
+	} finally {
+		await app.stop();
+	}
 }
 
 const TARGETS = {
@@ -85,7 +88,7 @@ const result = {
 	changeEffects: fig(community.changeEffects),
 	search: fig(community.search),
 	vocabularyLoadMs: ms(community.vocabularyMs),
-	http: { ...http, pages: undefined },
+	http: http && { ...http, pages: undefined },
 	pageWeight: pages,
 	targets: TARGETS
 };
@@ -110,31 +113,34 @@ console.table({
 console.log(
 	`builds ${N} (setups ${seeded.setups}, parts ${seeded.parts}), naive/ours ${result.ratioNaiveOverOurs}×, same SQL without the band/ours ${result.ratioSameSqlOverOurs}×, vocabulary loaded in ${result.vocabularyLoadMs} ms, seeded in ${result.seedSeconds} s`
 );
-console.log(
-	`\nHTTP: ${http.connections} connections, ${http.seconds} s a route, ${http.rounds} round(s), medians; static asset ${http.staticAsset} at ${http.staticReqPerS} req/s`
-);
-console.table(
-	Object.fromEntries(
-		http.routes.map((r) => [
-			r.route,
-			{
-				'req/s': r.reqPerS,
-				'of static': `${(r.ofStatic * 100).toFixed(1)} %`,
-				p50_ms: r.p50Ms,
-				p99_ms: r.p99Ms,
-				max_ms: r.maxMs,
-				errors: r.errors,
-				non2xx: r.non2xx
-			}
-		])
-	)
-);
-console.log('\nPages on a phone (390 px, CPU 4× slower):');
-console.table(
-	Object.fromEntries(
-		pages.map((p) => [p.page, { js_kB: p.jsKb, tbt_ms: p.tbtMs, scripts: p.scripts }])
-	)
-);
+if (http)
+	console.log(
+		`\nHTTP: ${http.connections} connections, ${http.seconds} s a route, ${http.rounds} round(s), medians; static asset ${http.staticAsset} at ${http.staticReqPerS} req/s`
+	);
+if (http)
+	console.table(
+		Object.fromEntries(
+			http.routes.map((r) => [
+				r.route,
+				{
+					'req/s': r.reqPerS,
+					'of static': `${(r.ofStatic * 100).toFixed(1)} %`,
+					p50_ms: r.p50Ms,
+					p99_ms: r.p99Ms,
+					max_ms: r.maxMs,
+					errors: r.errors,
+					non2xx: r.non2xx
+				}
+			])
+		)
+	);
+if (pages.length) console.log('\nPages on a phone (390 px, CPU 4× slower):');
+if (pages.length)
+	console.table(
+		Object.fromEntries(
+			pages.map((p) => [p.page, { js_kB: p.jsKb, tbt_ms: p.tbtMs, scripts: p.scripts }])
+		)
+	);
 fs.writeFileSync(out, JSON.stringify(result, null, 2) + '\n');
 console.log(`PERF JSON ${out}`);
 await closeDb();

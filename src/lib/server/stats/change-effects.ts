@@ -155,9 +155,11 @@ export type RecentStep = Pair & { kind: string };
  */
 export async function newestSteps(limit = 6): Promise<RecentStep[]> {
 	const rows = await db().query<Record<string, unknown>>(
-		`SELECT s.build_id, b.title, s.position, s.change_note, s.change_kind, p.best_run_kmh AS before_kmh,
+		// STRAIGHT_JOIN: walk the setups newest first and stop after `limit`. Left to itself, MariaDB
+		// read every build and sorted (500 ms a home page at 100,000 builds).
+		`SELECT STRAIGHT_JOIN s.build_id, b.title, s.position, s.change_note, s.change_kind, p.best_run_kmh AS before_kmh,
 			s.best_run_kmh AS after_kmh, s.effect_kmh, s.best_run_method AS method
-		FROM setups s JOIN setups p ON p.id = s.prev_setup_id JOIN builds b ON b.id = s.build_id
+		FROM setups s FORCE INDEX (PRIMARY) JOIN setups p ON p.id = s.prev_setup_id JOIN builds b ON b.id = s.build_id
 		WHERE s.any_listed = 1 AND s.effect_kmh IS NOT NULL
 		ORDER BY s.id DESC LIMIT :limit`,
 		{ replacements: { limit }, type: QueryTypes.SELECT }
