@@ -139,14 +139,10 @@ describe('change effects', () => {
 
 	it('the newest steps walk the setups newest first and stop: no build is sorted', async () => {
 		const spy = vi.spyOn(db(), 'query');
-		let sql = '';
-		try {
-			const steps = await newestSteps(6);
-			expect(steps.length).toBeGreaterThan(0);
-			sql = String(spy.mock.calls[0][0]);
-		} finally {
-			spy.mockRestore();
-		}
+		const steps = await newestSteps(6);
+		const sql = String(spy.mock.calls[0][0]);
+		spy.mockRestore();
+		expect(steps.length).toBeGreaterThan(0);
 		const plan = await db().query<{ table: string; key: string | null; Extra: string | null }>(
 			`EXPLAIN ${sql.replace(':limit', '6')}`,
 			{ type: QueryTypes.SELECT }
