@@ -15,7 +15,9 @@ let held: { at: number; known: Set<string>; fuse: Fuse<string> } | null = null;
 async function load(now: number) {
 	if (held && now - held.at < FRESH_MS) return held;
 	const rows = await db().query<{ t: string }>(
-		'SELECT word AS t FROM search_words GROUP BY word LIMIT 50000',
+		// Words from "a" on: numbers (a build's year, its cc, an id in a title) are never corrected
+		// (see `correct`), and there can be as many of them as builds.
+		"SELECT word AS t FROM search_words WHERE word >= 'a' GROUP BY word LIMIT 50000",
 		{ type: QueryTypes.SELECT }
 	);
 	const known = new Set(rows.map((r) => r.t));
