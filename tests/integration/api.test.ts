@@ -20,6 +20,9 @@ import { GET as schemaGet } from '../../src/routes/api/schema/build-sheet.json/+
 import { GET as csvGet } from '../../src/routes/api/builds/[id=id]/runs.csv/+server';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
+import { FIXTURE_SETUP } from '../support/sheet-fixtures';
+import { models } from '../../src/lib/server/db/models';
+import { PATCH as setupPatch } from '../../src/routes/api/builds/[id=id]/setups/[setupId=id]/+server';
 
 afterAll(closeDb);
 
@@ -289,6 +292,34 @@ describe('status codes of the JSON API', () => {
 		expect(
 			(await call(buildGet, fakeEvent({ user: me, params, path: `/api/builds/${id}` }))).status
 		).toBe(404);
+	});
+
+	it('a setup saved by its form takes a JSON PATCH of one field, keeping the rest', async () => {
+		const owner = await makeUser();
+		const b = await builds.create(owner.id, { title: 'Patch one field' });
+		const s = (await saveSetup(b.id, { ...FIXTURE_SETUP, changeNote: 'Baseline' })) as {
+			id: number;
+		};
+		const params = { id: String(b.id), setupId: String(s.id) };
+		const path = `/api/builds/${b.id}/setups/${s.id}`;
+		const patch = (body: string) =>
+			call(
+				setupPatch,
+				fakeEvent({ user: asUser(owner), params, path, request: jsonReq('PATCH', body) })
+			);
+		// Before: a save through the API stores every empty optional number as null, and the next
+		// PATCH merged those nulls in and failed its own schema ("Enter a number.") on each.
+		for (const [version, jet] of [
+			[0, 96],
+			[1, 98]
+		]) {
+			const r = await patch(JSON.stringify({ version, mainJet: jet }));
+			expect(r.status, await r.clone().text()).toBe(200);
+		}
+		const saved = (await models().Setup.findByPk(s.id))!;
+		expect(saved.config.mainJet).toBe(98);
+		expect(saved.config.carbBore).toBe(FIXTURE_SETUP.carbBore);
+		expect((await patch('{"version":1,"mainJet":100}')).status).toBe(409);
 	});
 
 	it('photos: 413 over 15 MB, 415 for a text file named .jpg, 404 on a draft’s photo for others', async () => {

@@ -8,7 +8,7 @@ import { closeDb } from '../../src/lib/server/db/connection';
 import { startApp } from '../security/support/app';
 import { benchClose } from './close-builds';
 import { benchCommunity } from './community';
-import { benchHttp } from './http';
+import { benchHttp, refusals } from './http';
 import { benchPageWeight } from './page-weight';
 import { mulberry32, seed } from './seed';
 
@@ -134,6 +134,7 @@ if (http)
 			])
 		)
 	);
+for (const [status, body] of refusals) console.log(`write refused with ${status}: ${body}`);
 if (pages.length) console.log('\nPages on a phone (390 px, CPU 4× slower):');
 if (pages.length)
 	console.table(

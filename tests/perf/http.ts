@@ -23,6 +23,9 @@ export type HttpFigure = {
 	non2xx: number;
 };
 
+/** The first answer of each refused status a write got, so a failing write stage says why. */
+export const refusals = new Map<number, string>();
+
 type Route = { name: string; path: string; headers?: Record<string, string>; write?: boolean };
 
 const median = (xs: number[]) => {
@@ -49,14 +52,16 @@ async function prepare(app: App, connections: number) {
 		await saveRun(five.id, s.id, fixtureRun(69 + k));
 	}
 	await setPublication((await builds.read(five.id))!, 'published');
-	// One setup per connection to save over and over, so no two connections race for a version.
-	const own = await db().query<{ id: number; build_id: number }>(
-		`SELECT s.id, s.build_id FROM setups s WHERE s.position = 1 AND s.build_id BETWEEN 1 AND :n`,
-		{ replacements: { n: connections }, type: QueryTypes.SELECT }
-	);
-	await db().query('UPDATE builds SET owner_id = :me WHERE id BETWEEN 1 AND :n', {
-		replacements: { me: member.id, n: connections }
-	});
+	// One build and setup per connection to save over and over, so no two connections race for a
+	// version: drafts of the member's own, made through the same service the sheet uses.
+	const own: { id: number; build_id: number }[] = [];
+	for (let k = 0; k < connections; k++) {
+		const b = await builds.create(member.id, { title: `Bench writer's sheet ${k + 1}` });
+		const s = (await saveSetup(b.id, { ...FIXTURE_SETUP, changeNote: 'Baseline' })) as {
+			id: number;
+		};
+		own.push({ id: s.id, build_id: b.id });
+	}
 	const c = new Client(app.origin);
 	const signedIn = await c.signIn(email, password);
 	if (!c.sessionCookies().size)
@@ -121,21 +126,27 @@ async function load(
 							version: versions.get(mine.id) ?? 0
 						});
 					}
+					// autocannon prepares a connection's next request before the answer to the last
+					// arrives, so the version is counted ahead: each save of one's own setup succeeds.
+					const version = ctx.version as number;
+					ctx.version = version + 1;
 					ctx.jet = ((ctx.jet as number | undefined) ?? 80) + 1;
 					return {
 						...req,
 						path: `/api/builds/${ctx.build}/setups/${ctx.setup}`,
 						headers: {
 							...req.headers,
+							// Plain answers, so a refusal's words can be shown.
+							'accept-encoding': 'identity',
 							cookie: p.cookie,
 							origin: app.origin,
 							'content-type': 'application/json'
 						},
-						body: JSON.stringify({ version: ctx.version, mainJet: 80 + ((ctx.jet as number) % 40) })
+						body: JSON.stringify({ version, mainJet: 80 + ((ctx.jet as number) % 40) })
 					};
 				},
-				onResponse: (status, body, ctx) => {
-					if (status === 200) ctx.version = (JSON.parse(body) as { version: number }).version;
+				onResponse: (status, body) => {
+					if (status !== 200 && !refusals.has(status)) refusals.set(status, body.slice(0, 300));
 				}
 			}
 		]

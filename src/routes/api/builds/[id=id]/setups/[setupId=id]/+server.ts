@@ -10,12 +10,16 @@ export const PATCH: RequestHandler = api(async (event) => {
 	const { build, setup } = await editSetup(event);
 	const body = await readJson(event.request);
 	const version = versionOf(body);
-	const stored = sheetBody(
-		'setup',
-		SETUP_FIELDS,
-		{ ...setup.config, changeNote: setup.changeNote, isStock: setup.isStock, ...(body as object) },
-		'draft'
+	// What is stored, under what was sent; a stored null is an empty field, not a value to check.
+	const merged = Object.fromEntries(
+		Object.entries({
+			...setup.config,
+			changeNote: setup.changeNote,
+			isStock: setup.isStock,
+			...(body as object)
+		}).filter(([, v]) => v !== null)
 	);
+	const stored = sheetBody('setup', SETUP_FIELDS, merged, 'draft');
 	await saveSetup(build.id, stored, { id: setup.id, version });
 	return json({ id: setup.id, version: version + 1 });
 });
