@@ -1,5 +1,5 @@
-// Turning what a reader typed into a MariaDB FULLTEXT boolean query. InnoDB indexes words of three
-// characters or more and skips a short list of stopwords; asking for either would match nothing.
+// The words a reader types and a build is found by (the search index, search_words): three
+// characters or more, without a short list of stopwords, as InnoDB's FULLTEXT took them before.
 const STOPWORDS = new Set(
 	'about are com des die een for from how that the this und was what when where who will with www'.split(
 		' '
@@ -10,12 +10,6 @@ export function words(text: string): string[] {
 	return (text.toLowerCase().match(/[\p{L}\p{N}]+/gu) ?? []).filter(
 		(w) => w.length >= 3 && !STOPWORDS.has(w)
 	);
-}
-
-/** Every word required, each also as a prefix ("cham" finds "chamber"). Null when nothing is left. */
-export function booleanQuery(text: string): string | null {
-	const ws = words(text);
-	return ws.length ? ws.map((w) => `+${w}*`).join(' ') : null;
 }
 
 /** The longest word kept in the search index; longer ones are cut (and typed ones the same way). */
