@@ -76,6 +76,7 @@ const result = {
 	builds: N,
 	setups: seeded.setups,
 	parts: seeded.parts,
+	summaries: seeded.summaries,
 	quick,
 	seedSeconds: Number(seedSeconds.toFixed(1)),
 	closeBuilds: fig(close.ours),
@@ -111,7 +112,7 @@ console.table({
 	search: row(result.search, TARGETS.searchP95Ms)
 });
 console.log(
-	`builds ${N} (setups ${seeded.setups}, parts ${seeded.parts}), naive/ours ${result.ratioNaiveOverOurs}×, same SQL without the band/ours ${result.ratioSameSqlOverOurs}×, vocabulary loaded in ${result.vocabularyLoadMs} ms, seeded in ${result.seedSeconds} s`
+	`builds ${N} (setups ${seeded.setups}, parts ${seeded.parts}), naive/ours ${result.ratioNaiveOverOurs}×, same SQL without the band/ours ${result.ratioSameSqlOverOurs}×, vocabulary loaded in ${result.vocabularyLoadMs} ms, seeded in ${result.seedSeconds} s (summaries filled in ${seeded.summaries.filledMs} ms: ${seeded.summaries.binRows} speed-map bins, ${seeded.summaries.countRows} change-effect counts)`
 );
 if (http)
 	console.log(

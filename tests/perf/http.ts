@@ -52,10 +52,11 @@ async function prepare(app: App, connections: number) {
 		await saveRun(five.id, s.id, fixtureRun(69 + k));
 	}
 	await setPublication((await builds.read(five.id))!, 'published');
-	// One build and setup per connection to save over and over, so no two connections race for a
-	// version: drafts of the member's own, made through the same service the sheet uses.
+	// Builds and setups to save over and over, each lent to one request at a time (see load), twice
+	// as many as connections so a lost answer leaves spares: drafts of the member's own, made
+	// through the same service the sheet uses.
 	const own: { id: number; build_id: number }[] = [];
-	for (let k = 0; k < connections; k++) {
+	for (let k = 0; k < 2 * connections; k++) {
 		const b = await builds.create(member.id, { title: `Bench writer's sheet ${k + 1}` });
 		const s = (await saveSetup(b.id, { ...FIXTURE_SETUP, changeNote: 'Baseline' })) as {
 			id: number;
@@ -111,29 +112,25 @@ async function load(
 		headers: { 'accept-encoding': 'br, gzip' }
 	};
 	if (!r.write) return autocannon({ ...common, requests: [{ method: 'GET', path: r.path }] });
-	let next = 0;
+	// Setups not in flight, each with the version its last answer gave. autocannon asks for a
+	// connection's next request only after the answer to the last (no pipelining), but clears the
+	// request's context each time round a one-request list: so the state lives here, and a setup is
+	// lent to one request at a time, then handed back with the version the answer carried.
+	const free = p.own.map((o) => ({ ...o, version: versions.get(o.id) ?? 0, jet: 80 }));
+	type Lent = (typeof free)[number];
 	return autocannon({
 		...common,
 		requests: [
 			{
 				method: 'PATCH',
 				setupRequest: (req, ctx) => {
-					if (ctx.setup === undefined) {
-						const mine = p.own[next++ % p.own.length];
-						Object.assign(ctx, {
-							setup: mine.id,
-							build: mine.build_id,
-							version: versions.get(mine.id) ?? 0
-						});
-					}
-					// autocannon prepares a connection's next request before the answer to the last
-					// arrives, so the version is counted ahead: each save of one's own setup succeeds.
-					const version = ctx.version as number;
-					ctx.version = version + 1;
-					ctx.jet = ((ctx.jet as number | undefined) ?? 80) + 1;
+					const mine = free.shift();
+					if (!mine) throw new Error('more connections than setups to save');
+					mine.jet = 80 + ((mine.jet + 1) % 40);
+					ctx.lent = mine;
 					return {
 						...req,
-						path: `/api/builds/${ctx.build}/setups/${ctx.setup}`,
+						path: `/api/builds/${mine.build_id}/setups/${mine.id}`,
 						headers: {
 							...req.headers,
 							// Plain answers, so a refusal's words can be shown.
@@ -142,11 +139,23 @@ async function load(
 							origin: app.origin,
 							'content-type': 'application/json'
 						},
-						body: JSON.stringify({ version, mainJet: 80 + ((ctx.jet as number) % 40) })
+						body: JSON.stringify({ version: mine.version, mainJet: mine.jet })
 					};
 				},
-				onResponse: (status, body) => {
-					if (status !== 200 && !refusals.has(status)) refusals.set(status, body.slice(0, 300));
+				onResponse: (status, body, ctx) => {
+					const mine = ctx.lent as Lent;
+					if (status === 200) {
+						mine.version = (JSON.parse(body) as { version: number }).version;
+						free.push(mine);
+						return;
+					}
+					if (!refusals.has(status)) refusals.set(status, body.slice(0, 300));
+					// A save still in flight when the last stage stopped may have moved the version
+					// after it was read: lend the setup again once its version is read afresh.
+					void syncVersions({ own: [mine] }).then((v) => {
+						mine.version = v.get(mine.id) ?? mine.version;
+						free.push(mine);
+					});
 				}
 			}
 		]
@@ -154,7 +163,7 @@ async function load(
 }
 
 /** Versions as they stand, so a round starts from what the last one left. */
-async function syncVersions(p: Awaited<ReturnType<typeof prepare>>) {
+async function syncVersions(p: { own: { id: number }[] }) {
 	const rows = await db().query<{ id: number; version: number }>(
 		'SELECT id, version FROM setups WHERE id IN (:ids)',
 		{ replacements: { ids: p.own.map((o) => o.id) }, type: QueryTypes.SELECT }
@@ -179,6 +188,8 @@ export async function benchHttp(
 			for (const r of list) {
 				const versions = r.write ? await syncVersions(p) : undefined;
 				await load(app, r, p, opts.connections, opts.warmupSeconds, versions);
+				// Saves the warm-up left in flight land before the versions are read again.
+				if (r.write) await new Promise((done) => setTimeout(done, 1000));
 				const got = await load(
 					app,
 					r,

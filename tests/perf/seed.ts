@@ -5,6 +5,7 @@
 // vocabulary of a few thousand invented part names; a short story to search.
 import { CHANGE_KINDS } from '../../src/lib/sheet/change-kinds';
 import { buildWords } from '../../src/lib/search/words';
+import { fillStatements } from '../../src/lib/stats/summary-sql';
 import { QueryTypes } from 'sequelize';
 import { db } from '../../src/lib/server/db/connection';
 
@@ -118,7 +119,17 @@ export async function seed(N: number, rnd: () => number) {
 	const around = (x: number, spread: number) => x + (rnd() * 2 - 1) * spread;
 	const s = db();
 	await s.query('SET FOREIGN_KEY_CHECKS = 0');
-	for (const t of ['search_words', 'photos', 'parts', 'runs', 'setups', 'builds'])
+	for (const t of [
+		'stat_marks',
+		'speed_map_bins',
+		'effect_counts',
+		'search_words',
+		'photos',
+		'parts',
+		'runs',
+		'setups',
+		'builds'
+	])
 		await s.query(`TRUNCATE TABLE ${t}`);
 	await s.query('SET FOREIGN_KEY_CHECKS = 1');
 	await s.query(
@@ -189,9 +200,27 @@ export async function seed(N: number, rnd: () => number) {
 				`INSERT INTO parts (id, build_id, setup_id, category, name, cost_minor, link, created_at) VALUES ${pt.join(',')}`
 			);
 	}
-	await s.query('ANALYZE TABLE setups, builds, parts, search_words');
+	// The speed map's and change effects' summaries, filled as their migration fills them.
+	const t0 = performance.now();
+	for (const sql of fillStatements()) await s.query(sql);
+	const summariesFilledMs = Math.round(performance.now() - t0);
+	const [rows] = await s.query<{ bins: number; counts: number }>(
+		'SELECT (SELECT COUNT(*) FROM speed_map_bins) AS bins, (SELECT COUNT(*) FROM effect_counts) AS counts',
+		{ type: QueryTypes.SELECT }
+	);
+	await s.query(
+		'ANALYZE TABLE setups, builds, parts, search_words, stat_marks, speed_map_bins, effect_counts'
+	);
 	await settle();
-	return { setups: setupId, parts: partId };
+	return {
+		setups: setupId,
+		parts: partId,
+		summaries: {
+			filledMs: summariesFilledMs,
+			binRows: Number(rows.bins),
+			countRows: Number(rows.counts)
+		}
+	};
 }
 
 /**

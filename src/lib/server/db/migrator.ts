@@ -16,6 +16,7 @@ import * as m012 from './migrations/2026.12.02T21.00.00.cheapest-by-currency';
 import * as m013 from './migrations/2026.12.02T21.30.00.no-news-mail';
 import * as m014 from './migrations/2026.12.02T23.40.00.idempotency-keys';
 import * as m015 from './migrations/2026.12.03T02.30.00.search-words';
+import * as m016 from './migrations/2026.12.03T06.00.00.stat-summaries';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -35,7 +36,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T21.00.00.cheapest-by-currency', ...m012 },
 	{ name: '2026.12.02T21.30.00.no-news-mail', ...m013 },
 	{ name: '2026.12.02T23.40.00.idempotency-keys', ...m014 },
-	{ name: '2026.12.03T02.30.00.search-words', ...m015 }
+	{ name: '2026.12.03T02.30.00.search-words', ...m015 },
+	{ name: '2026.12.03T06.00.00.stat-summaries', ...m016 }
 ];
 
 export function migrator() {

@@ -1,4 +1,5 @@
 import { refreshWords } from './search-words';
+import { refreshSummaries } from './stat-summaries';
 import { Op, QueryTypes } from 'sequelize';
 import { deriveRun, deriveSetup } from '../../sheet/derive';
 import { changeKind, judgeStep, type StepRun } from '../../sheet/change-kinds';
@@ -130,6 +131,7 @@ export async function refreshListing(buildId: number): Promise<void> {
 	);
 	await refreshWords({ ...b.get({ plain: true }), open });
 	await refreshSteps(buildId);
+	await refreshSummaries(buildId);
 }
 
 /**

@@ -4,6 +4,7 @@ import { missingFor } from '../../sheet/schema';
 import { Failure } from '../../failure';
 import { models, type Build } from '../db/models';
 import { inTransaction } from '../db/transaction';
+import { refreshSummaries } from '../derived/stat-summaries';
 import { forgetItems } from '../review/items';
 import { deleteAfterCommit } from '../storage/objects';
 import * as builds from './builds';
@@ -102,6 +103,8 @@ export async function destroyBuild(buildId: number): Promise<void> {
 			...comments.map((c) => ({ type: 'comment' as const, id: c.id }))
 		]);
 		await Build.destroy({ where: { id: buildId } });
+		// Its setups are gone: the summaries take away what they had added.
+		await refreshSummaries(buildId);
 		const keys = photos.flatMap((p) => [p.displayKey, p.thumbKey]);
 		await deleteAfterCommit(keys);
 	});

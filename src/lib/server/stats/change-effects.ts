@@ -5,8 +5,8 @@ import { models } from '../db/models';
 import { stepRun } from '../derived/recompute';
 
 // What each kind of change did across the published sheets. Pairs are judged when a sheet is saved
-// (src/lib/sheet/change-kinds.ts; stored as setups.change_kind and setups.effect_kmh), so these are
-// reads of one covering index, sorted by kind and speed change.
+// (src/lib/sheet/change-kinds.ts; stored as setups.change_kind and setups.effect_kmh): the figures
+// are read from counts kept with them, a kind's pairs from one covering index sorted by speed change.
 
 export type KindSummary = {
 	kind: ChangeKind;
@@ -19,52 +19,77 @@ export type KindSummary = {
 };
 
 export async function summarise(): Promise<KindSummary[]> {
-	const kinds = CHANGE_KINDS.map((k) => k.kind);
-	const counts = await db().query<{ kind: string; n: number; left_out: number }>(
-		`SELECT change_kind AS kind, SUM(effect_kmh IS NOT NULL) AS n, SUM(effect_kmh IS NULL) AS left_out
-		FROM setups FORCE INDEX (setups_change_effects)
-		WHERE any_listed = 1 AND change_kind IN (:kinds) GROUP BY change_kind`,
-		{ replacements: { kinds }, type: QueryTypes.SELECT }
+	// From the counts kept on every write (src/lib/stats/summary-sql.ts): per kind, the pairs left
+	// out, and the pairs at each speed change per whole km/h (to find a rank) and per hundredth (the
+	// precision steps are stored at, so the values read are exact).
+	const rows = await db().query<{ kind: string; grain: number; v: number; n: number }>(
+		'SELECT kind, grain, v, n FROM effect_counts WHERE grain IN (0, 2) AND n > 0 ORDER BY kind, grain, v',
+		{ type: QueryTypes.SELECT }
 	);
-	const n = new Map(counts.map((c) => [c.kind, Number(c.n)]));
-	const leftOut = new Map(counts.map((c) => [c.kind, Number(c.left_out)]));
+	const leftOut = new Map<string, number>();
+	const buckets = new Map<string, { v: number; n: number }[]>();
+	for (const r of rows) {
+		if (Number(r.grain) === 0) leftOut.set(r.kind, Number(r.n));
+		else buckets.set(r.kind, [...(buckets.get(r.kind) ?? []), { v: Number(r.v), n: Number(r.n) }]);
+	}
+	const n = new Map([...buckets].map(([kind, list]) => [kind, list.reduce((t, b) => t + b.n, 0)]));
 	// Quartiles by linear interpolation between order statistics (R-7, as PERCENTILE_CONT and most
-	// statistics packages do): h = (n − 1)·p, between the values at ranks ⌊h⌋ and ⌊h⌋ + 1. The index
-	// keeps each kind's speed changes sorted, so each pair of ranks is read at its offset — from the
-	// nearer end — in one statement for all kinds.
+	// statistics packages do): h = (n − 1)·p, between the values at ranks ⌊h⌋ and ⌊h⌋ + 1.
 	const wanted: { kind: string; p: number; lo: number; h: number }[] = [];
-	for (const kind of kinds) {
-		const m = n.get(kind) ?? 0;
-		if (m === 0) continue;
+	for (const [kind, m] of n)
 		for (const p of [0.25, 0.5, 0.75]) {
 			const h = (m - 1) * p;
 			wanted.push({ kind, p, lo: Math.floor(h), h });
 		}
-	}
-	const repl: Record<string, unknown> = {};
-	const parts = wanted.map((w, i) => {
+	// Which whole-km/h bucket holds each rank, and how far into it.
+	const place = (kind: string, rank: number) => {
+		let before = 0;
+		for (const b of buckets.get(kind)!) {
+			if (rank < before + b.n) return { bucket: b.v, within: rank - before };
+			before += b.n;
+		}
+		throw new Error(`rank ${rank} is past the ${kind} pairs`);
+	};
+	const needed = new Map<string, { kind: string; bucket: number }>();
+	const at = wanted.map((w) => {
 		const m = n.get(w.kind)!;
-		const fromTop = w.lo > m / 2;
-		repl[`k${i}`] = w.kind;
-		// Ranks ⌊h⌋ and ⌊h⌋ + 1 counted from the bottom, or the same two from the top (m − 2 − ⌊h⌋ ≥ 0,
-		// since ⌊h⌋ ≤ 0.75·(m − 1) < m − 1 whenever the top is nearer).
-		const offset = fromTop ? m - 2 - w.lo : w.lo;
-		return `(SELECT ${i} AS i, effect_kmh AS v FROM setups FORCE INDEX (setups_change_effects)
-			WHERE any_listed = 1 AND change_kind = :k${i} AND effect_kmh IS NOT NULL
-			ORDER BY effect_kmh ${fromTop ? 'DESC' : 'ASC'} LIMIT 2 OFFSET ${offset})`;
+		const pair = [place(w.kind, w.lo), place(w.kind, Math.min(w.lo + 1, m - 1))];
+		for (const p of pair) needed.set(`${w.kind}:${p.bucket}`, { kind: w.kind, bucket: p.bucket });
+		return pair;
 	});
-	const ranks = parts.length
-		? await db().query<{ i: number; v: number }>(parts.join(' UNION ALL '), {
-				replacements: repl,
-				type: QueryTypes.SELECT
-			})
+	// Then the hundredths inside only those buckets (at most six a kind, each ≤ 100 rows).
+	const repl: Record<string, unknown> = {};
+	const ranges = [...needed.values()].map((x, i) => {
+		Object.assign(repl, {
+			[`k${i}`]: x.kind,
+			[`a${i}`]: x.bucket * 100,
+			[`b${i}`]: x.bucket * 100 + 99
+		});
+		return `(kind = :k${i} AND v BETWEEN :a${i} AND :b${i})`;
+	});
+	const fine = ranges.length
+		? await db().query<{ kind: string; v: number; n: number }>(
+				`SELECT kind, v, n FROM effect_counts WHERE grain = 1 AND n > 0 AND (${ranges.join(' OR ')}) ORDER BY kind, v`,
+				{ replacements: repl, type: QueryTypes.SELECT }
+			)
 		: [];
-	const values = new Map<number, number[]>();
-	for (const r of ranks) values.set(Number(r.i), [...(values.get(Number(r.i)) ?? []), Number(r.v)]);
+	const inBucket = new Map<string, { v: number; n: number }[]>();
+	for (const r of fine) {
+		const key = `${r.kind}:${Math.floor(Number(r.v) / 100)}`;
+		inBucket.set(key, [...(inBucket.get(key) ?? []), { v: Number(r.v), n: Number(r.n) }]);
+	}
+	const valueAt = (kind: string, p: { bucket: number; within: number }) => {
+		let before = 0;
+		for (const r of inBucket.get(`${kind}:${p.bucket}`) ?? []) {
+			if (p.within < before + r.n) return r.v / 100;
+			before += r.n;
+		}
+		throw new Error(`the ${kind} counts per km/h and per hundredth disagree`);
+	};
 	const q = new Map<string, number>();
 	wanted.forEach((w, i) => {
-		// One value only when the kind has a single pair.
-		const [low, high = low] = (values.get(i) ?? []).sort((x, y) => x - y);
+		const low = valueAt(w.kind, at[i][0]);
+		const high = valueAt(w.kind, at[i][1]);
 		q.set(`${w.kind}:${w.p}`, low + (w.h - w.lo) * (high - low));
 	});
 	const get = (kind: string, p: number) => q.get(`${kind}:${p}`) ?? null;

@@ -2,6 +2,7 @@ import { QueryTypes } from 'sequelize';
 import { EXHAUST_TYPES } from '../../sheet/fields';
 import type { SpeedMapQuery } from '../../schemas/stats';
 import { METHODS, SPEED_MAP_X } from '../../stats/speed-map-axes';
+import { Y_BIN_KMH } from '../../stats/summary-sql';
 import { db } from '../db/connection';
 
 // The speed map's data: best measured speed against one setup column, one mark per published build
@@ -12,7 +13,6 @@ import { db } from '../db/connection';
 
 /** Above this many setups the map shows bins instead of points. */
 export const MAX_POINTS = 2000;
-const Y_BIN_KMH = 2;
 // Bin key = (x bin + KEY_X0) · KEY_X + speed bin · KEY_Y + pipe (1–4): x bins may be negative (places
 // below sea level), speed bins stay under 10,000 and there are fewer than 10 pipe values.
 const KEY_X0 = 100_000;
@@ -73,7 +73,7 @@ function filters(q: SpeedMapQuery) {
 		cycles: q.cycle ? [q.cycle] : ALL.cycle
 	};
 	// Unfiltered, a plain scan of the index is cheaper than 192 little ranges.
-	const narrowed = q.method.length || q.pipe.length || q.twoWay || q.closed || q.cycle;
+	const narrowed = q.method.length || q.pipe.length || q.twoWay || q.closed || q.cycle || q.family;
 	const where = [
 		's.listed = 1',
 		...(narrowed
@@ -129,16 +129,30 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 	const { col, sql, repl } = filters(q);
 	const numeric = q.x !== 'exhaust';
 	const w = SPEED_MAP_X[q.x].bin;
-	const x = numeric ? col : '0';
-	// One integer per bin (x bin, speed bin, pipe) groups far faster than three columns with a string.
-	const xi = numeric ? `FLOOR(${col} / ${w})` : '0';
 	const pipes = ALL.pipe;
+	// The bins come from the summary kept on every write (src/lib/stats/summary-sql.ts): one row per
+	// (x bin, speed bin, pipe) for each combination of filters, '' where a filter is not set.
+	// One integer per bin (x bin, speed bin, pipe) groups far faster than three columns with a string.
 	const groups = await db().query<Record<string, unknown>>(
-		`SELECT (${xi} + ${KEY_X0}) * ${KEY_X} + FLOOR(s.best_run_kmh / ${Y_BIN_KMH}) * ${KEY_Y} + FIELD(s.close_pipe, ${pipes.map((p) => `'${p}'`).join(', ')}) AS k,
-			COUNT(*) AS n, SUM(${x}) AS sx, SUM(s.best_run_kmh) AS sy, SUM(${x} * ${x}) AS sxx,
-			SUM(${x} * s.best_run_kmh) AS sxy, SUM(s.best_run_kmh * s.best_run_kmh) AS syy, MIN(${x}) AS lo, MAX(${x}) AS hi
-		${sql} GROUP BY 1 ORDER BY NULL`,
-		{ replacements: repl, type: QueryTypes.SELECT }
+		`SELECT (xb + ${KEY_X0}) * ${KEY_X} + yb * ${KEY_Y} + FIELD(pipe, ${pipes.map((p) => `'${p}'`).join(', ')}) AS k,
+			SUM(n) AS n, SUM(sx) AS sx, SUM(sy) AS sy, SUM(sxx) AS sxx, SUM(sxy) AS sxy, SUM(syy) AS syy,
+			MIN(lo) AS lo, MAX(hi) AS hi
+		FROM speed_map_bins
+		WHERE axis = :axis AND method IN (:methods) AND cycle = :cycle AND family = :family
+			AND two_way = :twoWay AND venue = :venue AND pipe IN (:pipes) AND n > 0
+		GROUP BY 1 ORDER BY NULL`,
+		{
+			replacements: {
+				axis: q.x,
+				methods: q.method.length ? q.method : [''],
+				cycle: q.cycle ?? '',
+				family: q.family ?? '',
+				twoWay: q.twoWay ? '1' : '',
+				venue: q.closed ? 'closed' : '',
+				pipes: q.pipe.length ? q.pipe : pipes
+			},
+			type: QueryTypes.SELECT
+		}
 	);
 	const sums = noSums();
 	for (const g of groups)

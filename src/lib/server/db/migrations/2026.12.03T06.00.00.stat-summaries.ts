@@ -1,0 +1,36 @@
+import { applyAppGrants } from '../grants';
+import type { Migration } from '../migrator';
+import { MARK_COLUMNS, fillStatements } from '../../../stats/summary-sql';
+
+// Summaries for the two aggregates that read every build: the speed map's bins and change
+// effects' counts, kept on every write in the same transaction as the change (see
+// src/lib/stats/summary-sql.ts), so a read costs what the number of bins costs, not the number of
+// builds. stat_marks keeps each build's setup columns as they were last added, to take them away.
+export const up: Migration = async ({ context: q }) => {
+	const s = q.sequelize;
+	// The same column types as setups (the generated pipe column becomes a plain copy).
+	await s.query(
+		`CREATE TABLE stat_marks AS SELECT ${MARK_COLUMNS.join(', ')} FROM setups WHERE 1 = 0`
+	);
+	await s.query(
+		'ALTER TABLE stat_marks ADD PRIMARY KEY (id), ADD INDEX stat_marks_build (build_id)'
+	);
+	await s.query(`CREATE TABLE speed_map_bins (
+		axis VARCHAR(16) NOT NULL, method VARCHAR(20) NOT NULL, cycle VARCHAR(12) NOT NULL,
+		family VARCHAR(120) NOT NULL, two_way VARCHAR(1) NOT NULL, venue VARCHAR(6) NOT NULL,
+		xb INT NOT NULL, yb INT NOT NULL, pipe VARCHAR(20) NOT NULL,
+		n INT NOT NULL, sx DOUBLE NOT NULL, sy DOUBLE NOT NULL, sxx DOUBLE NOT NULL,
+		sxy DOUBLE NOT NULL, syy DOUBLE NOT NULL, lo DOUBLE NULL, hi DOUBLE NULL,
+		PRIMARY KEY (axis, method, cycle, family, two_way, venue, xb, yb, pipe)
+	)`);
+	await s.query(`CREATE TABLE effect_counts (
+		kind VARCHAR(20) NOT NULL, grain TINYINT NOT NULL, v INT NOT NULL, n INT NOT NULL,
+		PRIMARY KEY (kind, grain, v)
+	)`);
+	for (const sql of fillStatements()) await s.query(sql);
+	await applyAppGrants(q);
+};
+
+export const down: Migration = async ({ context: q }) => {
+	for (const t of ['effect_counts', 'speed_map_bins', 'stat_marks']) await q.dropTable(t);
+};
