@@ -76,6 +76,21 @@ describe('comment digest (injected clock)', () => {
 		expect((await mailsTo(owner.email)).length).toBe(before + 1);
 	});
 
+	it('mails each digest once when several processes sweep at the same moment', async () => {
+		const owner = await makeUser();
+		const other = await makeUser();
+		const { build } = await publishedBuild(owner.id, 'Two sweeps fixture');
+		const t0 = new Date();
+		await createComment(asUser(other), build, { body: 'Swept twice?' }, address(), t0);
+		await createComment(asUser(other), build, { body: 'And again?' }, address(), t0);
+		const at = new Date(t0.getTime() + 61 * MIN);
+		// Each sweep on its own pool connections, as two app processes would run them.
+		await Promise.all([1, 2, 3].map(() => flushCommentDigests(at)));
+		const mails = await mailsTo(owner.email);
+		expect(mails).toHaveLength(1);
+		expect(mails[0].subject).toBe('2 new comments on “Two sweeps fixture”');
+	});
+
 	it('the one-click unsubscribe link stops that mail', async () => {
 		const owner = await makeUser();
 		const other = await makeUser();
