@@ -1,8 +1,7 @@
 import { QueryTypes } from 'sequelize';
-import { EXHAUST_TYPES } from '../../sheet/fields';
 import type { SpeedMapQuery } from '../../schemas/stats';
 import { METHODS, SPEED_MAP_X } from '../../stats/speed-map-axes';
-import { Y_BIN_KMH } from '../../stats/summary-sql';
+import { AXES, CYCLES, PIPES, Y_BIN_KMH, codeOf } from '../../stats/summary-sql';
 import { db } from '../db/connection';
 
 // The speed map's data: best measured speed against one setup column, one mark per published build
@@ -57,10 +56,10 @@ export type SpeedMap = {
 // filter further along still narrows the scan instead of being checked row by row.
 const ALL = {
 	method: METHODS.map((m) => m.value) as string[],
-	pipe: ['', ...EXHAUST_TYPES.map((o) => o.value)],
+	pipe: PIPES,
 	twoWay: [0, 1],
 	venue: ['closed-course', 'private-ground', 'other'],
-	cycle: ['two-stroke', 'four-stroke']
+	cycle: [...CYCLES]
 };
 
 function filters(q: SpeedMapQuery) {
@@ -129,27 +128,28 @@ export async function speedMap(q: SpeedMapQuery, maxPoints = MAX_POINTS): Promis
 	const { col, sql, repl } = filters(q);
 	const numeric = q.x !== 'exhaust';
 	const w = SPEED_MAP_X[q.x].bin;
-	const pipes = ALL.pipe;
+	const pipes = PIPES;
 	// The bins come from the summary kept on every write (src/lib/stats/summary-sql.ts): one row per
 	// (x bin, speed bin, pipe) for each combination of filters, '' where a filter is not set.
 	// One integer per bin (x bin, speed bin, pipe) groups far faster than three columns with a string.
 	const groups = await db().query<Record<string, unknown>>(
-		`SELECT (xb + ${KEY_X0}) * ${KEY_X} + yb * ${KEY_Y} + FIELD(pipe, ${pipes.map((p) => `'${p}'`).join(', ')}) AS k,
+		`SELECT (xb + ${KEY_X0}) * ${KEY_X} + yb * ${KEY_Y} + pipe AS k,
 			SUM(n) AS n, SUM(sx) AS sx, SUM(sy) AS sy, SUM(sxx) AS sxx, SUM(sxy) AS sxy, SUM(syy) AS syy,
 			MIN(lo) AS lo, MAX(hi) AS hi
 		FROM speed_map_bins
-		WHERE axis = :axis AND method IN (:methods) AND cycle = :cycle AND family = :family
-			AND two_way = :twoWay AND venue = :venue AND pipe IN (:pipes) AND n > 0
+		WHERE axis = :axis AND method IN (:methods) AND cycle = :cycle AND two_way = :twoWay
+			AND venue = :venue AND pipe IN (:pipes) AND n > 0
+			AND family = ${q.family ? 'COALESCE((SELECT id FROM summary_families WHERE name = :family), -1)' : '0'}
 		GROUP BY 1 ORDER BY NULL`,
 		{
 			replacements: {
-				axis: q.x,
-				methods: q.method.length ? q.method : [''],
-				cycle: q.cycle ?? '',
+				axis: AXES.indexOf(q.x) + 1,
+				methods: q.method.length ? q.method.map((m) => codeOf(ALL.method, m)) : [0],
+				cycle: q.cycle ? codeOf(CYCLES, q.cycle) : 0,
 				family: q.family ?? '',
-				twoWay: q.twoWay ? '1' : '',
-				venue: q.closed ? 'closed' : '',
-				pipes: q.pipe.length ? q.pipe : pipes
+				twoWay: q.twoWay ? 1 : 0,
+				venue: q.closed ? 1 : 0,
+				pipes: (q.pipe.length ? q.pipe : PIPES).map((p) => codeOf(PIPES, p))
 			},
 			type: QueryTypes.SELECT
 		}

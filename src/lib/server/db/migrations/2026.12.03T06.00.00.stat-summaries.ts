@@ -15,10 +15,16 @@ export const up: Migration = async ({ context: q }) => {
 	await s.query(
 		'ALTER TABLE stat_marks ADD PRIMARY KEY (id), ADD INDEX stat_marks_build (build_id)'
 	);
+	// Engine families by number, for the bins' keys; names compare as setups.engine_family does.
+	await s.query(`CREATE TABLE summary_families (
+		id INT NOT NULL AUTO_INCREMENT PRIMARY KEY, name VARCHAR(120) NOT NULL,
+		UNIQUE KEY summary_families_name (name)
+	)`);
+	// Codes as src/lib/stats/summary-sql.ts numbers them (0 = any).
 	await s.query(`CREATE TABLE speed_map_bins (
-		axis VARCHAR(16) NOT NULL, method VARCHAR(20) NOT NULL, cycle VARCHAR(12) NOT NULL,
-		family VARCHAR(120) NOT NULL, two_way VARCHAR(1) NOT NULL, venue VARCHAR(6) NOT NULL,
-		xb INT NOT NULL, yb INT NOT NULL, pipe VARCHAR(20) NOT NULL,
+		axis TINYINT NOT NULL, method TINYINT NOT NULL, cycle TINYINT NOT NULL, family INT NOT NULL,
+		two_way TINYINT NOT NULL, venue TINYINT NOT NULL, xb INT NOT NULL, yb SMALLINT NOT NULL,
+		pipe TINYINT NOT NULL,
 		n INT NOT NULL, sx DOUBLE NOT NULL, sy DOUBLE NOT NULL, sxx DOUBLE NOT NULL,
 		sxy DOUBLE NOT NULL, syy DOUBLE NOT NULL, lo DOUBLE NULL, hi DOUBLE NULL,
 		PRIMARY KEY (axis, method, cycle, family, two_way, venue, xb, yb, pipe)
@@ -32,5 +38,6 @@ export const up: Migration = async ({ context: q }) => {
 };
 
 export const down: Migration = async ({ context: q }) => {
-	for (const t of ['effect_counts', 'speed_map_bins', 'stat_marks']) await q.dropTable(t);
+	for (const t of ['effect_counts', 'speed_map_bins', 'summary_families', 'stat_marks'])
+		await q.dropTable(t);
 };
