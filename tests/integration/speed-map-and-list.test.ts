@@ -6,6 +6,7 @@ import { LIST_TUNING, listBuilds } from '../../src/lib/server/search/build-list'
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { forgetVocabulary } from '../../src/lib/server/search/vocabulary';
 import { MAX_POINTS, speedMap, xSpread } from '../../src/lib/server/stats/speed-map';
+import { engineFamilies } from '../../src/lib/server/stats/families';
 import { speedMapQuerySchema } from '../../src/lib/schemas/stats';
 import * as builds from '../../src/lib/server/sheet/builds';
 import { saveBuild, setPublication } from '../../src/lib/server/sheet/build-service';
@@ -111,6 +112,21 @@ describe('speed map', () => {
 		// Bins and sums, then the points when few enough: never one query per build.
 		expect(counts).toEqual([2, 2, 1]);
 		expect(MAX_POINTS).toBeGreaterThan(100);
+	});
+});
+
+describe('engine families for the filter lists', () => {
+	it('start one read when many page views find the list out of date at once', async () => {
+		const later = Date.now() + 3_600_000;
+		const spy = vi.spyOn(db(), 'query');
+		try {
+			const lists = await Promise.all([1, 2, 3, 4].map(() => engineFamilies(later)));
+			expect(spy).toHaveBeenCalledTimes(1);
+			expect(new Set(lists.map((l) => l.join('|'))).size).toBe(1);
+			expect(lists[0].length).toBeGreaterThan(0);
+		} finally {
+			spy.mockRestore();
+		}
 	});
 });
 
