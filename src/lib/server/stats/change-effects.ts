@@ -115,7 +115,10 @@ export type Pair = {
 	method: string;
 };
 
-/** The pairs behind one kind's figures, largest gain first (one query, a page at a time). */
+/**
+ * The pairs behind one kind's figures, largest gain first (one query, a page at a time). Ties go
+ * in the index's own order (build, then setup), so a page is read off the index, not sorted.
+ */
 export async function pairsFor(kind: ChangeKind, limit = 50, offset = 0): Promise<Pair[]> {
 	const rows = await db().query<Record<string, unknown>>(
 		`SELECT s.build_id, b.title, s.position, s.change_note, p.best_run_kmh AS before_kmh,
@@ -123,7 +126,7 @@ export async function pairsFor(kind: ChangeKind, limit = 50, offset = 0): Promis
 		FROM setups s FORCE INDEX (setups_change_effects)
 		JOIN setups p ON p.id = s.prev_setup_id JOIN builds b ON b.id = s.build_id
 		WHERE s.any_listed = 1 AND s.change_kind = :kind AND s.effect_kmh IS NOT NULL
-		ORDER BY s.effect_kmh DESC, s.id DESC LIMIT :limit OFFSET :offset`,
+		ORDER BY s.effect_kmh DESC, s.build_id DESC, s.id DESC LIMIT :limit OFFSET :offset`,
 		{ replacements: { kind, limit, offset }, type: QueryTypes.SELECT }
 	);
 	return rows.map((r) => ({
