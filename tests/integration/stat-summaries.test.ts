@@ -11,8 +11,8 @@ import { closeDb, db } from '../../src/lib/server/db/connection';
 import * as builds from '../../src/lib/server/sheet/builds';
 import { destroyBuild, setPublication } from '../../src/lib/server/sheet/build-service';
 import { removeSetup, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
-import { speedMap } from '../../src/lib/server/stats/speed-map';
-import { summarise } from '../../src/lib/server/stats/change-effects';
+import { speedMap, speedMapKept } from '../../src/lib/server/stats/speed-map';
+import { changeEffectsKept, summarise } from '../../src/lib/server/stats/change-effects';
 import { snapshot } from '../support/all-or-nothing';
 import { makeUser } from '../support/factories';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
@@ -245,5 +245,41 @@ describe('kept summaries', () => {
 		delete before.mail_queue;
 		delete after.mail_queue;
 		expect(after).toEqual(before);
+	});
+
+	it('kept per process, are read again as soon as a sheet changes, and cost one lookup while none does', async () => {
+		const owner = await makeUser();
+		const family = `kept fixture ${Date.now()}`;
+		const q = speedMapQuerySchema.parse({ x: 'jet', cycle: 'four-stroke', family });
+		const c = await sheet(owner.id, 'Summary D', [[{}, 81]]);
+		await db().query('UPDATE builds SET engine_family = :family WHERE id = :id', {
+			replacements: { id: c.id, family }
+		});
+		await setPublication((await builds.read(c.id))!, 'draft');
+		await setPublication((await builds.read(c.id))!, 'published');
+		const first = await speedMapKept(q);
+		expect(first.total).toBe(1);
+		const effects = await changeEffectsKept('needle-clip');
+		// Nothing changed: one primary-key lookup each, the same answers.
+		const spy = vi.spyOn(db(), 'query');
+		try {
+			expect(await speedMapKept(q)).toBe(first);
+			expect(await changeEffectsKept('needle-clip')).toBe(effects);
+			expect(spy.mock.calls.map((c) => String(c[0]))).toEqual([
+				'SELECT v FROM summary_version WHERE id = 1',
+				'SELECT v FROM summary_version WHERE id = 1'
+			]);
+		} finally {
+			spy.mockRestore();
+		}
+		// A new run, a new best: the next read has it, with no wait.
+		const { id } = await saveSetup(c.id, { ...FIXTURE_SETUP, needleClip: 3 } as never);
+		await saveRun(c.id, id, fixtureRun(84.5) as never);
+		const after = await speedMapKept(q);
+		expect(after.points.map((p) => p.kmh)).toEqual([84.5]);
+		const moved = await changeEffectsKept('needle-clip');
+		expect(moved.kinds.find((k) => k.kind === 'needle-clip')!.pairs).toBe(
+			effects.kinds.find((k) => k.kind === 'needle-clip')!.pairs + 1
+		);
 	});
 });

@@ -28,6 +28,9 @@ export async function refreshSummaries(buildId: number): Promise<void> {
 			type: QueryTypes.SELECT
 		})
 	]);
+	// Every listing refresh moves the version on (a title shows on the speed map's points too),
+	// so answers kept under the old one are read afresh (stats/kept.ts).
+	await s.query('UPDATE summary_version SET v = v + 1 WHERE id = 1');
 	if (JSON.stringify(before) === JSON.stringify(now)) return;
 	for (const sql of deltaStatements()) await s.query(sql, { replacements });
 }

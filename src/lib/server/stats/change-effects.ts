@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { CHANGE_KINDS, changeKind, judgeStep, type ChangeKind } from '../../sheet/change-kinds';
 import { db } from '../db/connection';
+import { whileUnchanged } from './kept';
 import { models } from '../db/models';
 import { stepRun } from '../derived/recompute';
 
@@ -203,4 +204,12 @@ export async function newestSteps(limit = 6): Promise<RecentStep[]> {
 		deltaKmh: Number(r.effect_kmh),
 		method: String(r.method)
 	}));
+}
+
+/** Change effects as pages and the API show them (every kind, one kind's first pairs), kept while no published sheet changes (kept.ts). */
+export function changeEffectsKept(kind: ChangeKind | null) {
+	return whileUnchanged(`change-effects ${kind}`, async () => {
+		const [kinds, pairs] = await Promise.all([summarise(), kind ? pairsFor(kind) : null]);
+		return { kinds, pairs };
+	});
 }

@@ -3,6 +3,7 @@ import type { SpeedMapQuery } from '../../schemas/stats';
 import { METHODS, SPEED_MAP_X } from '../../stats/speed-map-axes';
 import { AXES, CYCLES, PIPES, Y_BIN_KMH, codeOf } from '../../stats/summary-sql';
 import { db } from '../db/connection';
+import { whileUnchanged } from './kept';
 
 // The speed map's data: best measured speed against one setup column, one mark per published build
 // (its latest measured setup, the one close builds ranks). At most two queries whatever the number of
@@ -250,4 +251,9 @@ export function leastSquares(a: Sums) {
 		from: a.lo,
 		to: a.hi
 	};
+}
+
+/** The speed map as pages and the API show it: kept while no published sheet changes (kept.ts). */
+export function speedMapKept(q: SpeedMapQuery): Promise<SpeedMap> {
+	return whileUnchanged(`speed-map ${JSON.stringify(q)}`, () => speedMap(q));
 }

@@ -33,11 +33,22 @@ export const up: Migration = async ({ context: q }) => {
 		kind VARCHAR(20) NOT NULL, grain TINYINT NOT NULL, v INT NOT NULL, n INT NOT NULL,
 		PRIMARY KEY (kind, grain, v)
 	)`);
+	// Moved on by every listing refresh: answers kept per process are valid while it stands still.
+	await s.query(
+		'CREATE TABLE summary_version (id TINYINT NOT NULL PRIMARY KEY, v BIGINT NOT NULL)'
+	);
+	await s.query('INSERT INTO summary_version (id, v) VALUES (1, 0)');
 	for (const sql of fillStatements()) await s.query(sql);
 	await applyAppGrants(q);
 };
 
 export const down: Migration = async ({ context: q }) => {
-	for (const t of ['effect_counts', 'speed_map_bins', 'summary_families', 'stat_marks'])
+	for (const t of [
+		'summary_version',
+		'effect_counts',
+		'speed_map_bins',
+		'summary_families',
+		'stat_marks'
+	])
 		await q.dropTable(t);
 };
