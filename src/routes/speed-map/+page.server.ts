@@ -3,6 +3,7 @@ import { engineFamilies } from '$lib/server/stats/families';
 import { speedMapKept } from '$lib/server/stats/speed-map';
 import { speedMapMarkup } from '$lib/server/stats/speed-map-svg';
 import { paramsObject, speedMapQuerySchema } from '$lib/schemas/stats';
+import { speedMapRows } from '$lib/stats/speed-map-table';
 import type { PageServerLoad } from './$types';
 
 // Public. The first map is rendered here (so a shared link opens on it); the page then asks
@@ -11,5 +12,12 @@ export const load: PageServerLoad = async (event) => {
 	const query = speedMapQuerySchema.parse(paramsObject(event.url.searchParams));
 	const [map, families] = await Promise.all([speedMapKept(query), engineFamilies()]);
 	const units = unitsFor(event);
-	return { query, map, families, units, chart: speedMapMarkup(map, units) };
+	return {
+		query,
+		map,
+		families,
+		units,
+		chart: speedMapMarkup(map, units),
+		rows: speedMapRows(map, units)
+	};
 };
