@@ -5,8 +5,8 @@ import { SPEED_MAP_X } from './speed-map-axes';
 
 // The speed map's table ("the same data as a table") as markup: up to a few thousand rows that
 // never change on their own. Kept out of the page's components so the browser does not walk and
-// wire every row when the page wakes (on a phone that was most of the page's blocking time); the
-// server sends it with the page and the browser makes it again only when the map changes.
+// wire every row when the page wakes (on a phone that was most of the page's blocking time): the
+// browser makes the same string and takes over the server's rows as they are.
 
 const esc = (s: string) =>
 	s.replace(

@@ -3,7 +3,6 @@ import { engineFamilies } from '$lib/server/stats/families';
 import { speedMapKept } from '$lib/server/stats/speed-map';
 import { speedMapMarkup } from '$lib/server/stats/speed-map-svg';
 import { paramsObject, speedMapQuerySchema } from '$lib/schemas/stats';
-import { speedMapRows } from '$lib/stats/speed-map-table';
 import type { PageServerLoad } from './$types';
 
 // Public. The first map is rendered here (so a shared link opens on it); the page then asks
@@ -17,7 +16,6 @@ export const load: PageServerLoad = async (event) => {
 		map,
 		families,
 		units,
-		chart: speedMapMarkup(map, units),
-		rows: speedMapRows(map, units)
+		chart: speedMapMarkup(map, units)
 	};
 };
