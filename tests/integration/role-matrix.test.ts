@@ -4,6 +4,7 @@ import type { CurrentUser } from '../../src/lib/server/auth/current-user';
 import { closeDb } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
 import { addPart } from '../../src/lib/server/sheet/service';
+import { destroyBuild } from '../../src/lib/server/sheet/build-service';
 import { asUser, fakeEvent } from '../support/events';
 import { makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';
@@ -13,8 +14,11 @@ import { publishedBuild } from '../support/moderation-fixtures';
 // action that is not listed in MATRIX fails the first test, so nobody can add one unexamined.
 
 afterAll(async () => {
-	// The fixtures are published builds; take them away so they do not crowd other suites' lists.
-	if (people) await models().Build.destroy({ where: { ownerId: people.author.id } });
+	// The fixtures are published builds; take them away so they do not crowd other suites' lists,
+	// through the service, so the summaries kept on write lose them too.
+	if (people)
+		for (const b of await models().Build.findAll({ where: { ownerId: people.author.id } }))
+			await destroyBuild(b.id);
 	if (shopId) await models().Shop.destroy({ where: { id: shopId } });
 	await closeDb();
 });
