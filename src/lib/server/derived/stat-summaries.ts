@@ -17,7 +17,7 @@ const COLS = MARK_COLUMNS.join(', ');
 export async function refreshSummaries(buildId: number): Promise<void> {
 	const s = db();
 	const replacements = { buildId };
-	// Most saves (a part, the story) change nothing the summaries read: then nothing is written.
+	// Most saves (a part, the story) change nothing the bins read: then only the version moves.
 	const [before, now] = await Promise.all([
 		s.query(`SELECT ${COLS} FROM stat_marks WHERE build_id = :buildId ORDER BY id`, {
 			replacements,
