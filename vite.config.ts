@@ -44,6 +44,18 @@ export default defineConfig({
 					testTimeout: 60_000,
 					hookTimeout: 120_000
 				}
+			},
+			{
+				extends: true,
+				test: {
+					// Starts its own cluster (nginx, two app processes, primary and replica).
+					name: 'cluster',
+					include: ['tests/cluster/**/*.test.ts'],
+					environment: 'node',
+					fileParallelism: false,
+					testTimeout: 90_000,
+					hookTimeout: 180_000
+				}
 			}
 		]
 	}

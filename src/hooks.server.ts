@@ -8,10 +8,11 @@ import { bodyLimit } from '$lib/server/web/body-limits';
 import { flushCommentDigests } from '$lib/server/comments/digest';
 import '$lib/server/mail/send';
 import { flushMailQueue } from '$lib/server/mail/queue';
-import { closeDb } from '$lib/server/db/connection';
+import { closeDb, warmUp } from '$lib/server/db/connection';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/web/origin-check';
 import { publicCache } from '$lib/server/web/public-cache';
+import { changesReadPrimary, replicaReads } from '$lib/server/web/replica-reads';
 import { withSecurityHeaders } from '$lib/server/web/security-headers';
 
 // Auth.js's session cookie, whole or in chunks (a large token is split as `.0`, `.1`, …).
@@ -33,8 +34,10 @@ export const handle = sequence(
 	bodyLimit,
 	pinHost,
 	clientAddress,
+	replicaReads,
 	authHandle,
 	currentUser,
+	changesReadPrimary,
 	publicCache
 );
 
@@ -47,6 +50,10 @@ export const handleError: HandleServerError = ({ error, event, status }) => {
 
 /** Timed work from the server process itself: comment digests, expired sessions, the mail queue. */
 export const init: ServerInit = () => {
+	// Sequelize asks the primary for its version before the first query of a process: ask now, so
+	// a process that starts while the primary is up keeps reading from the replica should the
+	// primary stop before its first request.
+	warmUp().catch((e: unknown) => console.error('[database]', e));
 	const timer = setInterval(() => {
 		const now = new Date();
 		flushCommentDigests(now).catch((e: unknown) => console.error('[comment digest]', e));

@@ -36,7 +36,9 @@ let aptUpdated = false;
 
 /** apt-get installs the Debian packages whose binaries are missing. */
 export async function ensureDebianPackages(wanted) {
-	const missing = wanted.filter((w) => !which(w.bin)).map((w) => w.pkg);
+	const missing = wanted
+		.filter((w) => (w.file ? !fs.existsSync(w.file) : !which(w.bin)))
+		.map((w) => w.pkg);
 	if (missing.length === 0) return;
 	if (process.getuid?.() !== 0) {
 		fail(

@@ -12,19 +12,33 @@ const files = (dir) => ({
 	log: path.join(dir, 'error.log')
 });
 
-export async function startMariadb(e) {
-	const f = files(e.DB_DATA_DIR);
-	fs.mkdirSync(e.DB_DATA_DIR, { recursive: true });
+/**
+ * Starts (initialising when new) a MariaDB on `dir` and `port`: the stack's database by default;
+ * `extra` adds server options (binary log, server id), `wipe` starts from an empty data folder,
+ * `create` makes the database and its accounts. Returns its pid, a stop function and whether the
+ * data folder was new.
+ */
+export async function startMariadb(
+	e,
+	{ dir = e.DB_DATA_DIR, port = e.DB_PORT, extra = [], wipe = false, create = true } = {}
+) {
+	const f = files(dir);
+	if (wipe) {
+		await stopStale(f.pid, `--datadir=${f.data}`, 'MariaDB');
+		fs.rmSync(dir, { recursive: true, force: true });
+	}
+	fs.mkdirSync(dir, { recursive: true });
 	// A server from an earlier run whose launcher died: ours if its command line names our data dir.
 	await stopStale(f.pid, `--datadir=${f.data}`, 'MariaDB');
 	fs.rmSync(f.socket, { force: true });
-	if (await portOpen(e.DB_PORT)) {
+	if (await portOpen(port)) {
 		fail(
-			`port ${e.DB_PORT} (MariaDB) is already in use by another program`,
+			`port ${port} (MariaDB) is already in use by another program`,
 			`Stop that program, or choose another port with DB_PORT=…`
 		);
 	}
-	if (!fs.existsSync(path.join(f.data, 'mysql'))) {
+	const fresh = !fs.existsSync(path.join(f.data, 'mysql'));
+	if (fresh) {
 		console.log('· initialising the MariaDB data folder…');
 		fs.rmSync(f.data, { recursive: true, force: true });
 		const code = await run(
@@ -47,14 +61,15 @@ export async function startMariadb(e) {
 			`--datadir=${f.data}`,
 			`--socket=${f.socket}`,
 			`--pid-file=${f.pid}`,
-			`--port=${e.DB_PORT}`,
+			`--port=${port}`,
 			'--bind-address=127.0.0.1',
 			'--skip-name-resolve',
 			'--user=root',
 			`--log-error=${f.log}`,
 			// Room for the benchmark's 100,000 builds and their indexes (about 500 MB) in memory.
 			'--innodb-buffer-pool-size=1G',
-			'--max-connections=200'
+			'--max-connections=200',
+			...extra
 		],
 		{ detached: true, stdio: 'ignore' }
 	);
@@ -62,8 +77,8 @@ export async function startMariadb(e) {
 	while (Date.now() < until) {
 		if (child.exitCode !== null) break;
 		if (await ping(f.socket)) {
-			await createDatabase(e, f.socket);
-			return { pid: child.pid, stop: () => stopMariadb(e) };
+			if (create) await createDatabase(e, f.socket);
+			return { pid: child.pid, socket: f.socket, fresh, stop: () => stopMariadb(dir) };
 		}
 		await sleep(150);
 	}
@@ -105,9 +120,19 @@ async function createDatabase(e, socket) {
 	if (code !== 0) fail('could not create the database and its user', 'See the message above.');
 }
 
+/** Runs SQL as root over the server's socket. */
+export async function rootSql(socket, sql) {
+	const code = await run(
+		which('mariadb') ?? 'mariadb',
+		['--no-defaults', `--socket=${socket}`, '-uroot', '-e', sql],
+		{ stdio: ['ignore', 'ignore', 'inherit'] }
+	);
+	return code === 0;
+}
+
 /** A clean shutdown: SIGTERM makes mariadbd flush and exit; wait for it. */
-export async function stopMariadb(e) {
-	const f = files(e.DB_DATA_DIR);
+export async function stopMariadb(dir) {
+	const f = files(dir);
 	const pid = readPid(f.pid);
 	if (!pid || !alive(pid)) return;
 	process.kill(pid, 'SIGTERM');

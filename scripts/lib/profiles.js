@@ -30,6 +30,39 @@ const DEFAULTS = {
 		BUILD_DIR: '.data/perf-build',
 		RUN_DIR: '.data/perf-run'
 	},
+	// `npm run serve:cluster`: nginx on PORT in front of APP_PROCESSES app processes (APP_PORT,
+	// APP_PORT + 1, …), a primary MariaDB and a replica, and the fakes.
+	cluster: {
+		PORT: '3500',
+		APP_PORT: '3501',
+		DB_PORT: '3347',
+		DB_REPLICA_PORT: '3348',
+		S3_PORT: '4609',
+		SMTP_PORT: '2565',
+		DB_NAME: 'squishline',
+		DB_DATA_DIR: '.data/cluster-mariadb',
+		DB_REPLICA_DATA_DIR: '.data/cluster-replica',
+		S3_DATA_DIR: '.data/cluster-s3',
+		FAKE_MAIL_DIR: '.data/cluster-outbox',
+		BUILD_DIR: 'build',
+		RUN_DIR: '.data/cluster-run'
+	},
+	// The same topology for the fault tests (tests/cluster), from empty data folders each run.
+	'cluster-test': {
+		PORT: '3600',
+		APP_PORT: '3601',
+		DB_PORT: '3357',
+		DB_REPLICA_PORT: '3358',
+		S3_PORT: '4619',
+		SMTP_PORT: '2575',
+		DB_NAME: 'squishline_cluster',
+		DB_DATA_DIR: '.data/ctest-mariadb',
+		DB_REPLICA_DATA_DIR: '.data/ctest-replica',
+		S3_DATA_DIR: '.data/ctest-s3',
+		FAKE_MAIL_DIR: '.data/ctest-outbox',
+		BUILD_DIR: '.data/test-build',
+		RUN_DIR: '.data/ctest-run'
+	},
 	test: {
 		PORT: '3100',
 		DB_PORT: '3317',
@@ -90,6 +123,25 @@ export function stackEnv(name, outer = process.env) {
 		SIGNIN_ATTEMPTS_PER_ADDRESS:
 			name === 'test' ? '1000' : (outer.SIGNIN_ATTEMPTS_PER_ADDRESS ?? '')
 	};
+	if (base.APP_PORT) {
+		Object.assign(e, {
+			APP_PORT: pick('APP_PORT'),
+			APP_PROCESSES: outer.APP_PROCESSES ?? '2',
+			DB_REPLICA_HOST: '127.0.0.1',
+			DB_REPLICA_PORT: pick('DB_REPLICA_PORT'),
+			DB_REPLICA_DATA_DIR: abs(pick('DB_REPLICA_DATA_DIR')),
+			DB_REPL_USER: outer.DB_REPL_USER ?? 'squishline_repl',
+			DB_REPL_PASSWORD: outer.DB_REPL_PASSWORD ?? 'squishline-repl-local',
+			// nginx is the edge: it sets X-Forwarded-For to the peer's address, the last entry.
+			ADDRESS_HEADER: outer.ADDRESS_HEADER ?? 'x-forwarded-for',
+			XFF_DEPTH: outer.XFF_DEPTH ?? '1',
+			EDGE_CACHE_SECONDS: outer.EDGE_CACHE_SECONDS ?? '10',
+			// The fault tests start from nothing each run; the demo keeps its data.
+			WIPE_DB: name === 'cluster-test' ? '1' : ''
+		});
+		e.FRESH_DB = '';
+		e.SIGNIN_ATTEMPTS_PER_ADDRESS = outer.SIGNIN_ATTEMPTS_PER_ADDRESS ?? '';
+	}
 	e.S3_ENDPOINT = outer.S3_ENDPOINT ?? `http://127.0.0.1:${e.S3_PORT}`;
 	e.SMTP_URL = outer.SMTP_URL ?? `smtp://127.0.0.1:${e.SMTP_PORT}`;
 	// Auth.js builds its links from this, never from a request's Host or X-Forwarded-Host.
@@ -99,8 +151,12 @@ export function stackEnv(name, outer = process.env) {
 
 /** The same stack as the owner account: for migrations, seeding and the benchmark's loader. */
 export function ownerEnv(e) {
+	// The owner's work (migrations, seeding) reads what it just wrote: the primary only.
+	const rest = { ...e };
+	delete rest.DB_REPLICA_HOST;
+	delete rest.DB_REPLICA_PORT;
 	return {
-		...e,
+		...rest,
 		DB_USER: e.DB_OWNER_USER,
 		DB_PASSWORD: e.DB_OWNER_PASSWORD,
 		DB_APP_USER: e.DB_USER,
@@ -116,7 +172,19 @@ export const STACK_KEYS = [
 	'S3_ENDPOINT',
 	'SMTP_URL',
 	'AUTH_URL',
-	'FRESH_DB'
+	'FRESH_DB',
+	'APP_PROCESSES',
+	'DB_REPLICA_HOST',
+	'DB_REPL_USER',
+	'DB_REPL_PASSWORD',
+	'ADDRESS_HEADER',
+	'XFF_DEPTH',
+	'EDGE_CACHE_SECONDS',
+	'WIPE_DB',
+	'SIGNIN_ATTEMPTS_PER_ADDRESS',
+	'SQUISHLINE_DEMO',
+	'AUTH_TRUST_HOST',
+	'BODY_SIZE_LIMIT'
 ];
 
 export { ROOT };

@@ -58,9 +58,10 @@ async function playwright(env) {
 async function perfSmoke(env) {
 	console.log('\n▸ benchmark smoke run (npm run perf -- --quick)');
 	const clean = Object.fromEntries(Object.entries(env).filter(([k]) => !STACK_KEYS.includes(k)));
+	// The build this run has just made, instead of a second one.
 	const code = await run(process.execPath, ['scripts/stack.js', 'perf', '--quick'], {
 		cwd: ROOT,
-		env: clean
+		env: { ...clean, BUILD_DIR: env.BUILD_DIR, PERF_REUSE_BUILD: '1' }
 	});
 	const r = readJson(path.join(ROOT, '.data/perf-quick.json'));
 	const ok =
@@ -82,14 +83,28 @@ async function perfSmoke(env) {
 	return { name: 'perf smoke', code: ok ? 0 : 1, passed: ok ? 1 : 0, failed: ok ? 0 : 1 };
 }
 
-export async function runSuites({ env, build, startApp }) {
+/** The checks started at the beginning: waited for here, their output shown if they failed. */
+async function checkResult(checks) {
+	const { code, log } = await checks;
+	console.log(`\n▸ checks (prettier, eslint, svelte-check): ${code === 0 ? 'passed' : 'FAILED'}`);
+	if (code !== 0) {
+		console.log(fs.readFileSync(log, 'utf8'));
+		console.log('  Fix the problems listed above (npm run format fixes layout).');
+	}
+	return { name: 'checks', code, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1 };
+}
+
+export async function runSuites({ env, checks, build, startApp }) {
 	const results = [await vitest('unit', env)];
-	// Built before the server-side suites: the security suite starts the production entry on it.
+	// Built before the server-side suites: the security suite starts the production entry on it,
+	// the cluster suite serves it from two processes behind nginx.
 	await build();
 	results.push(await vitest('integration', env), await vitest('security', env));
+	results.push(await vitest('cluster', env));
 	results.push(await perfSmoke(env));
 	await startApp();
 	results.push(await playwright(env));
+	results.push(await checkResult(checks));
 
 	console.log('\n▸ summary');
 	for (const r of results) {

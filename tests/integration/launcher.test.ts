@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import mariadb from 'mariadb';
 import { afterAll, describe, expect, it } from 'vitest';
+import { launch } from '../support/launcher';
 
 // Runs the real launcher (`npm run services` mode) on ports and folders of its own, so this
 // test does not disturb the stack the rest of `npm test` is using.
@@ -30,33 +31,7 @@ type Ready = { launcher: number; children: { name: string; pid: number }[] };
 const running: ChildProcess[] = [];
 
 function startLauncher(): Promise<{ child: ChildProcess; ready: Ready }> {
-	const child = spawn(process.execPath, ['scripts/stack.js', 'services'], {
-		cwd: root,
-		env,
-		stdio: ['ignore', 'pipe', 'pipe']
-	});
-	running.push(child);
-	let out = '';
-	return new Promise((resolve, reject) => {
-		const timer = setTimeout(
-			() => reject(new Error(`launcher not ready in 90 s:\n${out}`)),
-			90_000
-		);
-		const onData = (d: Buffer) => {
-			out += d.toString();
-			const m = out.match(/STACK READY (\{.*\})/);
-			if (m) {
-				clearTimeout(timer);
-				resolve({ child, ready: JSON.parse(m[1]) as Ready });
-			}
-		};
-		child.stdout!.on('data', onData);
-		child.stderr!.on('data', onData);
-		child.once('exit', (code) => {
-			clearTimeout(timer);
-			reject(new Error(`launcher exited (${code}) before ready:\n${out}`));
-		});
-	});
+	return launch<Ready>('services', env, 'STACK READY', 90_000, (child) => running.push(child));
 }
 
 const alive = (pid: number) => {

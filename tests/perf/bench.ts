@@ -41,9 +41,11 @@ if (process.env.PERF_HTTP !== '0') {
 	try {
 		http = await benchHttp(app, {
 			rounds: quick ? 1 : 3,
-			seconds: quick ? 1 : 10,
+			// Few connections for two seconds: even the slowest page answers several times on a
+			// busy machine (with ten for one second, a slow page could finish none).
+			seconds: quick ? 2 : 10,
 			warmupSeconds: quick ? 1 : 3,
-			connections: quick ? 10 : 50
+			connections: quick ? 4 : 50
 		});
 		pages = await benchPageWeight(app.origin, http.pages, quick ? 1 : 3);
 	} finally {

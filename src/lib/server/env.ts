@@ -16,6 +16,13 @@ const schema = z.object({
 		.default('false')
 		.transform((v) => v === 'true'),
 	DB_TLS_CA: z.string().optional(),
+	/** A read replica (MariaDB GTID replication): reads outside transactions go there. */
+	DB_REPLICA_HOST: z.string().optional(),
+	DB_REPLICA_PORT: z.coerce.number().int().positive().optional(),
+	/** After a failed read, the replica is left alone this long (reads go to the primary). */
+	DB_REPLICA_PAUSE_S: z.coerce.number().positive().default(5),
+	/** How long a member's next page waits for the replica to reach their own write. */
+	DB_REPLICA_WAIT_MS: z.coerce.number().int().nonnegative().default(500),
 	/** Set when running migrations as the owner account: the account whose grants they set. */
 	DB_APP_USER: z.string().optional(),
 	DB_APP_HOST: z.string().default('127.0.0.1'),
@@ -47,7 +54,9 @@ const schema = z.object({
 		.string()
 		.optional()
 		.transform((v) => v === '1'),
-	AUTH_SECRET: z.string().optional()
+	AUTH_SECRET: z.string().optional(),
+	/** How long an edge cache (nginx, a CDN) may keep a public answer (s-maxage); 0: not at all. */
+	EDGE_CACHE_SECONDS: z.coerce.number().int().nonnegative().default(0)
 });
 
 export type Env = z.infer<typeof schema>;

@@ -1,5 +1,6 @@
 import { activeSuspension, type Suspension } from '../../review/suspension';
 import type { Role } from '../../roles';
+import { replicated } from '../db/connection';
 import * as users from './users';
 
 export type CurrentUser = {
@@ -23,7 +24,11 @@ export async function loadCurrentUser(
 	now: Date = new Date()
 ): Promise<LoadedUser> {
 	if (!userId) return { user: null };
-	const row = await users.read(userId);
+	// A replica a moment behind (an account made a second ago) must not sign anyone out: a "no
+	// such account" from it is asked again of the primary.
+	const row =
+		(await users.read(userId)) ??
+		(replicated() ? await users.read(userId, { fromPrimary: true }) : null);
 	if (!row) return { user: null };
 	return {
 		user: {

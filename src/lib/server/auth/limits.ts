@@ -1,10 +1,38 @@
-import { RateLimiterMemory } from 'rate-limiter-flexible';
+import { createHash } from 'node:crypto';
+import {
+	RateLimiterMemory,
+	RateLimiterMySQL,
+	type RateLimiterAbstract
+} from 'rate-limiter-flexible';
+import { env } from '../env';
+import { limitStore } from '../db/limit-store';
 
-// In-process counters: enough for one app process. Several processes would share a store
-// (rate-limiter-flexible has a MySQL backend) instead.
+// Counters in the database (table rate_limits), so a limit holds across every app process and
+// machine. Should the database not answer, each process falls back to counting in its own memory
+// (the library's insurance limiter): limits stay in force, only less exact, and no page fails
+// because a counter could not be written.
+
+export type Limiter = RateLimiterAbstract;
+type Options = NonNullable<ConstructorParameters<typeof RateLimiterMemory>[0]>;
+
+function limiter(name: string, opts: Options): Limiter {
+	return new RateLimiterMySQL({
+		...opts,
+		keyPrefix: name,
+		storeClient: limitStore,
+		storeType: 'pool',
+		dbName: env().DB_NAME,
+		tableName: 'rate_limits',
+		tableCreated: true,
+		insuranceLimiter: new RateLimiterMemory({ ...opts, keyPrefix: name })
+	});
+}
+
+// What is counted (an address, an e-mail) is kept only as a hash.
+const hashed = (key: string) => createHash('sha256').update(key).digest('base64url').slice(0, 32);
 
 /** Wrong passwords per account: 5 in 15 minutes, then a 15-minute wait. */
-export const passwordFailures = new RateLimiterMemory({
+export const passwordFailures = limiter('pw-fail', {
 	points: 5,
 	duration: 900,
 	blockDuration: 900
@@ -14,50 +42,55 @@ export const passwordFailures = new RateLimiterMemory({
  * Password attempts per client address, right or wrong: 30 in 15 minutes. The test stack raises
  * it (SIGNIN_ATTEMPTS_PER_ADDRESS), because every browser test signs in from 127.0.0.1.
  */
-export const passwordAttemptsByAddress = new RateLimiterMemory({
+export const passwordAttemptsByAddress = limiter('pw-addr', {
 	points: Number(process.env.SIGNIN_ATTEMPTS_PER_ADDRESS) || 30,
 	duration: 900
 });
 
 /** Mails we send on request (sign-up, reset, sign-in link) per address: 5 an hour. */
-export const mailRequests = new RateLimiterMemory({ points: 5, duration: 3600 });
+export const mailRequests = limiter('mail', { points: 5, duration: 3600 });
 
 /** Spends one point; false when the limit is reached. */
-export async function take(limiter: RateLimiterMemory, key: string): Promise<boolean> {
+export async function take(l: Limiter, key: string): Promise<boolean> {
 	try {
-		await limiter.consume(key);
+		await l.consume(hashed(key));
 		return true;
 	} catch {
 		return false;
 	}
 }
 
-export async function isBlocked(limiter: RateLimiterMemory, key: string): Promise<boolean> {
-	const r = await limiter.get(key);
+export async function isBlocked(l: Limiter, key: string): Promise<boolean> {
+	const r = await l.get(hashed(key));
 	return r !== null && r.remainingPoints <= 0;
 }
 
+/** Clears a key's count (a right password, a completed reset). */
+export async function forget(l: Limiter, key: string): Promise<void> {
+	await l.delete(hashed(key));
+}
+
 /** Comments: 10 per account and 30 per address in 10 minutes. */
-export const commentsByAccount = new RateLimiterMemory({ points: 10, duration: 600 });
-export const commentsByAddress = new RateLimiterMemory({ points: 30, duration: 600 });
+export const commentsByAccount = limiter('cmt-acct', { points: 10, duration: 600 });
+export const commentsByAddress = limiter('cmt-addr', { points: 30, duration: 600 });
 
 /** Reports: 10 per account and 30 per address an hour. */
-export const reportsByAccount = new RateLimiterMemory({ points: 10, duration: 3600 });
-export const reportsByAddress = new RateLimiterMemory({ points: 30, duration: 3600 });
+export const reportsByAccount = limiter('rep-acct', { points: 10, duration: 3600 });
+export const reportsByAddress = limiter('rep-addr', { points: 30, duration: 3600 });
 
 /** Messages to shops: 5 per account and 15 per address an hour. */
-export const messagesByAccount = new RateLimiterMemory({ points: 5, duration: 3600 });
-export const messagesByAddress = new RateLimiterMemory({ points: 15, duration: 3600 });
+export const messagesByAccount = limiter('msg-acct', { points: 5, duration: 3600 });
+export const messagesByAddress = limiter('msg-addr', { points: 15, duration: 3600 });
 
 export type Spent = { ok: true } | { ok: false; retryAfterS: number };
 
 /** Spends a point from each limiter; refused as soon as one is used up, with the wait. */
-export async function spend(pairs: [RateLimiterMemory, string][]): Promise<Spent> {
-	for (const [limiter, key] of pairs) {
+export async function spend(pairs: [Limiter, string][]): Promise<Spent> {
+	for (const [l, key] of pairs) {
 		try {
-			await limiter.consume(key);
+			await l.consume(hashed(key));
 		} catch (res) {
-			const ms = (res as { msBeforeNext?: number }).msBeforeNext ?? limiter.duration * 1000;
+			const ms = (res as { msBeforeNext?: number }).msBeforeNext ?? l.duration * 1000;
 			return { ok: false, retryAfterS: Math.ceil(ms / 1000) };
 		}
 	}

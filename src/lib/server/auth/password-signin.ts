@@ -1,5 +1,5 @@
 import * as users from './users';
-import { passwordAttemptsByAddress, passwordFailures, isBlocked, take } from './limits';
+import { forget, passwordAttemptsByAddress, passwordFailures, isBlocked, take } from './limits';
 import { checkPassword, hashPassword } from './password';
 
 export type PasswordSignInResult =
@@ -36,11 +36,11 @@ export async function verifyPasswordSignIn(
 		return { ok: false, code: 'credentials' };
 	}
 	if (!user.emailVerified) return { ok: false, code: 'unverified' };
-	await passwordFailures.delete(key);
+	await forget(passwordFailures, key);
 	return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
 }
 
 /** A completed reset proves the owner: their account's lock goes. */
 export async function liftAccountLock(email: string): Promise<void> {
-	await passwordFailures.delete(users.normaliseEmail(email));
+	await forget(passwordFailures, users.normaliseEmail(email));
 }

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
-import { db } from '../db/connection';
+import { db, replicated } from '../db/connection';
 
 // Sessions stay JWTs (password sign-in needs them), but each carries two claims the database can
 // overrule: `sid`, one id for the life of the session (signing out deny-lists it until it would
@@ -24,13 +24,21 @@ export async function sessionValid(
 	claims: { sid?: unknown; gen?: unknown }
 ): Promise<boolean> {
 	if (typeof claims.sid !== 'string' || typeof claims.gen !== 'number') return false;
-	const rows = await db().query<{ ok: number }>(
-		`SELECT 1 AS ok FROM users u
-		 WHERE u.id = ? AND u.session_generation = ?
-		   AND NOT EXISTS (SELECT 1 FROM revoked_sessions r WHERE r.sid = ?)`,
-		{ replacements: [userId, claims.gen, claims.sid], type: QueryTypes.SELECT }
-	);
-	return rows.length === 1;
+	const ask = (fromPrimary: boolean) =>
+		db().query<{ ok: number }>(
+			`SELECT 1 AS ok FROM users u
+			 WHERE u.id = ? AND u.session_generation = ?
+			   AND NOT EXISTS (SELECT 1 FROM revoked_sessions r WHERE r.sid = ?)`,
+			{
+				replacements: [userId, claims.gen, claims.sid],
+				type: QueryTypes.SELECT,
+				...(fromPrimary ? { useMaster: true } : {})
+			}
+		);
+	if ((await ask(false)).length === 1) return true;
+	// "No" ends the session for good, so a replica that is a moment behind does not get the last
+	// word: the primary is asked (only then, so valid sessions cost the primary nothing).
+	return replicated() && (await ask(true)).length === 1;
 }
 
 /** Ends one session for good (signing out): refused from now until it would have expired. */

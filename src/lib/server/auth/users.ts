@@ -20,8 +20,8 @@ export type UserPatch = Partial<
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
-export async function read(id: string) {
-	return models().User.findByPk(id);
+export async function read(id: string, opts: { fromPrimary?: boolean } = {}) {
+	return models().User.findByPk(id, opts.fromPrimary ? { useMaster: true } : {});
 }
 
 /** A member's display name as a column of a page's one SELECT (db/nested.ts): nothing else. */

@@ -17,6 +17,7 @@ import * as m013 from './migrations/2026.12.02T21.30.00.no-news-mail';
 import * as m014 from './migrations/2026.12.02T23.40.00.idempotency-keys';
 import * as m015 from './migrations/2026.12.03T02.30.00.search-words';
 import * as m016 from './migrations/2026.12.03T06.00.00.stat-summaries';
+import * as m017 from './migrations/2026.12.03T08.00.00.rate-limits';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -37,7 +38,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T21.30.00.no-news-mail', ...m013 },
 	{ name: '2026.12.02T23.40.00.idempotency-keys', ...m014 },
 	{ name: '2026.12.03T02.30.00.search-words', ...m015 },
-	{ name: '2026.12.03T06.00.00.stat-summaries', ...m016 }
+	{ name: '2026.12.03T06.00.00.stat-summaries', ...m016 },
+	{ name: '2026.12.03T08.00.00.rate-limits', ...m017 }
 ];
 
 export function migrator() {

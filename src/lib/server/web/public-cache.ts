@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { Handle } from '@sveltejs/kit';
+import { env } from '../env';
 
 /**
  * What a shared cache may keep: an answer to a GET from someone not signed in, that sets no
@@ -20,7 +21,13 @@ export const publicCache: Handle = async ({ event, resolve }) => {
 	)
 		return response;
 	const out = new Response(response.body, response);
-	out.headers.set('cache-control', 'public, max-age=0, must-revalidate');
+	// An edge cache in front (nginx, a CDN) may keep it a few seconds (EDGE_CACHE_SECONDS); browsers
+	// always ask again.
+	const edge = env().EDGE_CACHE_SECONDS;
+	out.headers.set(
+		'cache-control',
+		`public, max-age=0${edge > 0 ? `, s-maxage=${edge}` : ''}, must-revalidate`
+	);
 	out.headers.append('vary', 'Cookie, Accept-Language');
 	if (
 		(out.headers.get('content-type') ?? '').includes('application/json') &&
