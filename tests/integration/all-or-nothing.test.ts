@@ -42,7 +42,7 @@ import {
 } from '../../src/lib/server/shops/transfers';
 import { expectAllOrNothing } from '../support/all-or-nothing';
 import { asUser } from '../support/events';
-import { makeUser } from '../support/factories';
+import { anyAddress, makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 
@@ -138,7 +138,7 @@ describe('removing a setup', () => {
 			{ type: 'setup', id: setupId },
 			{ reason: 'wrong-data', note: '' },
 			now(),
-			'127.0.0.1'
+			anyAddress()
 		);
 		const { Report, ReviewCase, Flag } = models();
 		await Flag.create({
@@ -167,8 +167,8 @@ describe('the review desk', () => {
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
 		const unsafe = { reason: 'unsafe' as const, note: 'Too fast for the brakes' };
-		await expectAllOrNothing(() => fileReport(reader, ref, unsafe, now(), '127.0.0.1'));
-		await fileReport(reader, ref, unsafe, now(), '127.0.0.1');
+		await expectAllOrNothing(() => fileReport(reader, ref, unsafe, now(), anyAddress()));
+		await fileReport(reader, ref, unsafe, now(), anyAddress());
 		const kase = (await readCase(ref))!;
 		const hide = { action: 'hide' as const, reason: 'Unsafe advice.' };
 		await expectAllOrNothing(() => decide(mod, kase.id, hide, now()));

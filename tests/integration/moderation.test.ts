@@ -17,7 +17,7 @@ import { unsubscribeUrl } from '../../src/lib/server/mail/unsubscribe';
 import { actions as unsubscribeActions } from '../../src/routes/unsubscribe/[token]/+page.server';
 import { actions as buildActions } from '../../src/routes/builds/[id=id]/+page.server';
 import { asUser, fakeEvent } from '../support/events';
-import { makeUser } from '../support/factories';
+import { anyAddress, makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';
 
 afterAll(closeDb);
@@ -127,7 +127,7 @@ describe('suspension', () => {
 			{ type: 'comment', id: c.id },
 			{ reason: 'spam', note: '' },
 			t0,
-			'127.0.0.1'
+			anyAddress()
 		);
 		const kase = await readCase({ type: 'comment', id: c.id });
 		await decide(
@@ -204,19 +204,19 @@ describe('reports, flags and the caution banner', () => {
 		const [a, b, c] = await Promise.all([makeUser(), makeUser(), makeUser()]);
 		const now = new Date();
 		const unsafe = { reason: 'unsafe' as const, note: 'no front brake' };
-		expect(await fileReport(asUser(a), ref, unsafe, now, '127.0.0.1')).toEqual({
+		expect(await fileReport(asUser(a), ref, unsafe, now, anyAddress())).toEqual({
 			filed: true,
 			added: false,
 			caution: false
 		});
 		// The same person again: added to their open report, still one reporter.
-		expect(await fileReport(asUser(a), ref, unsafe, now, '127.0.0.1')).toEqual({
+		expect(await fileReport(asUser(a), ref, unsafe, now, anyAddress())).toEqual({
 			filed: true,
 			added: true,
 			caution: false
 		});
-		expect((await fileReport(asUser(b), ref, unsafe, now, '127.0.0.1')).caution).toBe(false);
-		expect((await fileReport(asUser(c), ref, unsafe, now, '127.0.0.1')).caution).toBe(true);
+		expect((await fileReport(asUser(b), ref, unsafe, now, anyAddress())).caution).toBe(false);
+		expect((await fileReport(asUser(c), ref, unsafe, now, anyAddress())).caution).toBe(true);
 		expect(await models().Report.count({ where: { itemType: 'build', itemId: build.id } })).toBe(3);
 	});
 
@@ -225,13 +225,13 @@ describe('reports, flags and the caution banner', () => {
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
 		const r = asUser(await makeUser());
-		await fileReport(r, ref, { reason: 'unsafe', note: '' }, new Date(), '127.0.0.1');
+		await fileReport(r, ref, { reason: 'unsafe', note: '' }, new Date(), anyAddress());
 		const second = await fileReport(
 			r,
 			ref,
 			{ reason: 'wrong-data', note: 'The jet size is for a different carb.' },
 			new Date(),
-			'127.0.0.1'
+			anyAddress()
 		);
 		expect(second).toMatchObject({ filed: true, added: true });
 		const rows = await models().Report.findAll({ where: { itemType: 'build', itemId: build.id } });
@@ -246,7 +246,7 @@ describe('reports, flags and the caution banner', () => {
 		const { build } = await publishedBuild(owner.id);
 		const ref = { type: 'build' as const, id: build.id };
 		const r = await makeUser();
-		await fileReport(asUser(r), ref, { reason: 'wrong-data', note: '' }, new Date(), '127.0.0.1');
+		await fileReport(asUser(r), ref, { reason: 'wrong-data', note: '' }, new Date(), anyAddress());
 		expect((await readCase(ref))?.caution).toBe(false);
 		const kase = await readCase(ref);
 		await decide(asUser(mod, 'moderator'), kase!.id, { action: 'triage', reason: '' }, new Date());
@@ -279,7 +279,7 @@ describe('reports, flags and the caution banner', () => {
 			ref,
 			{ reason: 'unsafe', note: '' },
 			new Date(),
-			'127.0.0.1'
+			anyAddress()
 		);
 		const kase = (await readCase(ref))!;
 		const before = (await builds.read(build.id))!.get({ plain: true });
@@ -321,7 +321,7 @@ describe('reports, flags and the caution banner', () => {
 			{ type: 'comment', id: c.id },
 			{ reason: 'wrong-data', note: '' },
 			now,
-			'127.0.0.1'
+			anyAddress()
 		);
 		await editComment(author, c.id, 'Try a 94 main', now);
 		expect((await models().Comment.findByPk(c.id))?.body).toBe('Try a 94 main');
@@ -339,7 +339,7 @@ describe('putting back and who is mailed', () => {
 			ref,
 			{ reason: 'spam', note: '' },
 			new Date(),
-			'127.0.0.1'
+			anyAddress()
 		);
 		const c = (await readCase(ref))!;
 		await decide(mod, c.id, { action: 'hide', reason: 'advertising' }, new Date());
@@ -383,7 +383,7 @@ describe('putting back and who is mailed', () => {
 			ref,
 			{ reason: 'other', note: '' },
 			new Date(),
-			'127.0.0.1'
+			anyAddress()
 		);
 		const c = (await readCase(ref))!;
 		await decide(mod, c.id, { action: 'triage', reason: '' }, new Date());
@@ -394,7 +394,7 @@ describe('putting back and who is mailed', () => {
 			ref,
 			{ reason: 'other', note: '' },
 			new Date(),
-			'127.0.0.1'
+			anyAddress()
 		);
 		await decide(mod, c.id, { action: 'hide', reason: 'made-up figures' }, new Date());
 		expect(await deliveredTo(owner.email)).toHaveLength(1);
@@ -415,7 +415,7 @@ describe('the desk a page at a time', () => {
 				ref,
 				{ reason: 'other', note: '' },
 				new Date(),
-				'127.0.0.1'
+				anyAddress()
 			);
 			mine.push((await readCase(ref))!.id);
 		}

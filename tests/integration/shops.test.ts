@@ -22,7 +22,7 @@ import { listBuilds } from '../../src/lib/server/search/build-list';
 import { buildListSchema } from '../../src/lib/schemas/build-list';
 import { objectExists } from '../../src/lib/server/storage/objects';
 import { asUser } from '../support/events';
-import { makeUser } from '../support/factories';
+import { anyAddress, makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';
 import { phonePhoto } from '../support/photos';
 
@@ -285,14 +285,14 @@ async function busyAccount() {
 		{ type: 'build', id: build.id },
 		{ reason: 'spam', note: '' },
 		new Date(),
-		'127.0.0.1'
+		anyAddress()
 	);
 	await fileReport(
 		owner,
 		{ type: 'build', id: theirs.id },
 		{ reason: 'spam', note: '' },
 		new Date(),
-		'127.0.0.1'
+		anyAddress()
 	);
 	return { owner, shop, build, setupId, photo, logoKey, mine, onMine, theirs };
 }

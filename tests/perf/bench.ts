@@ -8,12 +8,13 @@ import { closeDb } from '../../src/lib/server/db/connection';
 import { startApp } from '../security/support/app';
 import { benchClose } from './close-builds';
 import { benchCommunity } from './community';
+import { benchEdge } from './edge';
 import { benchHttp, refusals } from './http';
 import { benchPageWeight } from './page-weight';
 import { mulberry32, seed } from './seed';
 
 const quick = process.argv.includes('--quick');
-const N = quick ? 1000 : Number(process.env.PERF_BUILDS ?? 100_000);
+const N = quick ? 300 : Number(process.env.PERF_BUILDS ?? 100_000);
 const RUNS = quick ? 40 : 200;
 const NAIVE_RUNS = quick ? 10 : 40;
 const out = process.env.PERF_OUT ?? (quick ? '.data/perf-quick.json' : 'tests/perf/last-run.json');
@@ -36,6 +37,7 @@ const community = await benchCommunity(mulberry32(11), RUNS);
 // leaves the HTTP and page stages out (the run at a million builds measures the functions).
 let http: Awaited<ReturnType<typeof benchHttp>> | null = null;
 let pages: Awaited<ReturnType<typeof benchPageWeight>> = [];
+let edge: Awaited<ReturnType<typeof benchEdge>> | null = null;
 if (process.env.PERF_HTTP !== '0') {
 	const app = await startApp(Number(process.env.PERF_HTTP_PORT ?? 3201));
 	try {
@@ -44,13 +46,24 @@ if (process.env.PERF_HTTP !== '0') {
 			// Few connections for two seconds: even the slowest page answers several times on a
 			// busy machine (with ten for one second, a slow page could finish none).
 			seconds: quick ? 2 : 10,
-			warmupSeconds: quick ? 1 : 3,
+			warmupSeconds: quick ? 0 : 3,
 			connections: quick ? 4 : 50
 		});
 		pages = await benchPageWeight(app.origin, http.pages, quick ? 1 : 3);
 	} finally {
 		await app.stop();
 	}
+	// The same build page through nginx: one process, two, then the edge cache.
+	edge = await benchEdge(
+		http.pages.find((p) => p.name.startsWith('build page'))!.path,
+		http.staticAsset,
+		{
+			rounds: quick ? 1 : 3,
+			seconds: quick ? 2 : 10,
+			warmupSeconds: quick ? 0 : 3,
+			connections: quick ? 4 : 50
+		}
+	);
 }
 
 const TARGETS = {
@@ -64,7 +77,9 @@ const TARGETS = {
 	buildPageOfStatic: 0.1,
 	readP99Ms: 300,
 	pageJsKb: 80,
-	pageTbtMs: 200
+	pageTbtMs: 200,
+	twoOverOneProcess: 1.5,
+	cachedBuildPageOfStatic: 0.5
 };
 
 const result = {
@@ -93,6 +108,7 @@ const result = {
 	vocabularyLoadMs: ms(community.vocabularyMs),
 	http: http && { ...http, pages: undefined },
 	pageWeight: pages,
+	edge,
 	targets: TARGETS
 };
 
@@ -145,6 +161,17 @@ if (pages.length)
 			pages.map((p) => [p.page, { js_kB: p.jsKb, tbt_ms: p.tbtMs, scripts: p.scripts }])
 		)
 	);
+if (edge) {
+	console.log(
+		`\nThrough nginx (${edge.connections} connections): build page ${edge.oneProcess.reqPerS} req/s with one app process, ${edge.twoProcesses.reqPerS} with two (${edge.twoOverOne}×, target ${TARGETS.twoOverOneProcess}×); with the edge cache ${edge.cachedPage.reqPerS} req/s against the static asset's ${edge.staticViaNginx.reqPerS} (${(edge.cachedOfStatic * 100).toFixed(1)} %, target ${TARGETS.cachedBuildPageOfStatic * 100} %)`
+	);
+	console.table({
+		'build page, 1 process': edge.oneProcess,
+		'build page, 2 processes': edge.twoProcesses,
+		'build page, edge cache': edge.cachedPage,
+		'static asset from nginx': edge.staticViaNginx
+	});
+}
 fs.writeFileSync(out, JSON.stringify(result, null, 2) + '\n');
 console.log(`PERF JSON ${out}`);
 await closeDb();

@@ -182,12 +182,13 @@ export async function benchHttp(
 		const statics: number[] = [];
 		for (let round = 0; round < opts.rounds; round++) {
 			const asset: Route = { name: 'static asset', path: p.asset };
-			await load(app, asset, p, opts.connections, opts.warmupSeconds);
+			if (opts.warmupSeconds > 0) await load(app, asset, p, opts.connections, opts.warmupSeconds);
 			const st = await load(app, asset, p, opts.connections, opts.seconds);
 			statics.push(st.requests.average);
 			for (const r of list) {
 				const versions = r.write ? await syncVersions(p) : undefined;
-				await load(app, r, p, opts.connections, opts.warmupSeconds, versions);
+				if (opts.warmupSeconds > 0)
+					await load(app, r, p, opts.connections, opts.warmupSeconds, versions);
 				// Saves the warm-up left in flight land before the versions are read again.
 				if (r.write) await new Promise((done) => setTimeout(done, 1000));
 				const got = await load(

@@ -11,7 +11,7 @@ import { saveShop } from '../../src/lib/server/shops/pages';
 import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { signInWithPassword } from '../e2e/support';
-import { makeUser } from '../support/factories';
+import { anyAddress, makeUser } from '../support/factories';
 import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 import { PAYLOADS } from './payloads';
 
@@ -86,7 +86,7 @@ async function seed(): Promise<Seeded> {
 			{ type: 'comment', id: commentIds[i] },
 			{ reason: 'other', note: p(i + 9, 1000) },
 			now,
-			'127.0.0.1'
+			anyAddress()
 		);
 	}
 	const mod = await makeUser({ role: 'moderator' });

@@ -19,3 +19,13 @@ export async function makeUser(
 		await users.update(user.id, { suspendedAt: new Date(), suspendedReason: 'test' });
 	return { id: user.id, email, password };
 }
+
+let addresses = 0;
+/**
+ * A client address no other call uses: per-address limits are counted in the database for the
+ * whole test run, so tests that are not about those limits never share an address.
+ */
+export function anyAddress(): string {
+	addresses++;
+	return `10.${200 + (process.pid % 50)}.${Math.floor(addresses / 250) % 250}.${addresses % 250}`;
+}

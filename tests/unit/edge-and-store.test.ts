@@ -69,6 +69,9 @@ describe('the edge configuration', () => {
 		expect(conf).toContain('sl_written=');
 		expect(conf).toContain('proxy_set_header X-Forwarded-For $remote_addr;');
 		expect(conf).not.toContain('proxy_ignore_headers');
+		// An answer that stops being public must not be served from an old copy.
+		expect(conf).not.toMatch(/proxy_cache_use_stale[^;]*updating/);
+		expect(conf).not.toContain('proxy_cache_background_update on');
 	});
 
 	it('serves the hashed build files itself for a year, compressed ahead', () => {
