@@ -177,7 +177,8 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 
 	it('reads from the primary while the replica is stopped, and from the replica again once it is back', async () => {
 		const owner = await lib.makeUser();
-		const { build } = await lib.publishedBuild(owner.id, 'Replica away');
+		const { build, setupId } = await lib.publishedBuild(owner.id, 'Replica away');
+		const member = await signedIn(ready.origin, owner.email, owner.password);
 		const reader = browser(app(0));
 		await until(
 			'the replica has the build',
@@ -192,9 +193,19 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 				expect(page.status).toBe(200);
 				expect(await page.text()).toContain('Replica away');
 			}
+			// Saving goes on meanwhile, and the member sees it.
+			const saved = await saveNote(member, build.id, setupId, 'Saved while the replica was away');
+			expect(saved.status).toBe(200);
+			expect(await firstNote(member, build.id)).toBe('Saved while the replica was away');
 		} finally {
 			await replica.start();
 		}
+		// Back, it catches up with what was written while it was away.
+		await replicaCaughtUp();
+		const [row] = await replica.sql<{ note: string }>(
+			`SELECT change_note AS note FROM ${settings.DB_NAME}.setups WHERE id = ${setupId}`
+		);
+		expect(row.note).toBe('Saved while the replica was away');
 		// Once its pause is over, each process reads from the replica again.
 		const before = await replicaSelects();
 		await until(

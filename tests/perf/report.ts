@@ -51,4 +51,28 @@ if (run.pageWeight?.length) {
 		)
 	);
 }
+if (run.edge) {
+	const e = run.edge;
+	const row = (label: string, x: Record<string, number>, note = '') =>
+		`| ${label} | ${n(x.reqPerS)} | ${n(x.p50Ms)} | ${n(x.p99Ms)} | ${x.errors} | ${note} |`;
+	out.push(
+		'',
+		`Through nginx (${e.connections} connections, medians of ${e.rounds} rounds of ${e.seconds} s):`,
+		'',
+		'| build page | req/s | p50 ms | p99 ms | errors | |',
+		'| --- | --- | --- | --- | --- | --- |',
+		row('one app process, no edge cache', e.oneProcess),
+		row(
+			'two app processes, no edge cache',
+			e.twoProcesses,
+			`${e.twoOverOne}× one process (target ≥ ${t.twoOverOneProcess}× ${ok(e.twoOverOne >= t.twoOverOneProcess)})`
+		),
+		row(
+			'two app processes, edge cache',
+			e.cachedPage,
+			`${(e.cachedOfStatic * 100).toFixed(1)} % of the static asset (target ≥ ${t.cachedBuildPageOfStatic * 100} % ${ok(e.cachedOfStatic >= t.cachedBuildPageOfStatic)})`
+		),
+		row('static asset, from nginx', e.staticViaNginx)
+	);
+}
 console.log(out.join('\n'));
