@@ -255,6 +255,9 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 	it('routes around an app process killed by its pid', async () => {
 		const owner = await lib.makeUser();
 		const { build, setupId } = await lib.publishedBuild(owner.id, 'One process down');
+		// Readers read the replica: let it have the new build first (a build published a moment
+		// ago is "not found" there until it arrives).
+		await replicaCaughtUp();
 		const victim = ready.apps[0].pid;
 		process.kill(victim, 'SIGKILL');
 		await until('the process is gone', async () => !alive(victim));
