@@ -9,6 +9,7 @@ import { flushCommentDigests } from '$lib/server/comments/digest';
 import '$lib/server/mail/send';
 import { flushMailQueue } from '$lib/server/mail/queue';
 import { closeDb, warmUp } from '$lib/server/db/connection';
+import { watchReplica } from '$lib/server/db/replica-watch';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/web/origin-check';
 import { publicCache } from '$lib/server/web/public-cache';
@@ -54,6 +55,7 @@ export const init: ServerInit = () => {
 	// a process that starts while the primary is up keeps reading from the replica should the
 	// primary stop before its first request.
 	warmUp().catch((e: unknown) => console.error('[database]', e));
+	const stopWatch = watchReplica();
 	const timer = setInterval(() => {
 		const now = new Date();
 		flushCommentDigests(now).catch((e: unknown) => console.error('[comment digest]', e));
@@ -69,6 +71,7 @@ export const init: ServerInit = () => {
 	process.once('sveltekit:shutdown' as never, () => {
 		clearInterval(timer);
 		clearInterval(mail);
+		stopWatch();
 		closeDb().catch(() => undefined);
 	});
 };

@@ -218,6 +218,48 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 		);
 	});
 
+	it('reads from the primary while the replica answers but lags, and from the replica once it has caught up', async () => {
+		const owner = await lib.makeUser();
+		const { build, setupId } = await lib.publishedBuild(owner.id, 'Replica behind');
+		const member = await signedIn(ready.origin, owner.email, owner.password);
+		await replicaCaughtUp();
+		// Process 2 reads from the replica (an earlier test may have set it aside for a moment).
+		const selects = await replicaSelects();
+		await until(
+			'process 2 reads the replica',
+			async () => {
+				await firstNote(browser(app(1)), build.id);
+				return (await replicaSelects()) > selects;
+			},
+			15_000
+		);
+		await replica.sql('STOP SLAVE SQL_THREAD');
+		try {
+			const saved = await saveNote(member, build.id, setupId, 'Newer than the replica');
+			expect(saved.status).toBe(200);
+			// Someone else: the replica's old copy at first, the primary's once the replica is
+			// further behind than DB_REPLICA_MAX_LAG_S (5 s) — while it still has not applied it.
+			expect(await firstNote(browser(app(1)), build.id)).toBe('Kit on');
+			await until(
+				'readers leave the lagging replica',
+				async () => (await firstNote(browser(app(1)), build.id)) === 'Newer than the replica',
+				12_000
+			);
+		} finally {
+			await replica.sql('START SLAVE SQL_THREAD');
+		}
+		await replicaCaughtUp();
+		const before = await replicaSelects();
+		await until(
+			'reads return to the replica',
+			async () => {
+				await firstNote(browser(app(1)), build.id);
+				return (await replicaSelects()) > before;
+			},
+			15_000
+		);
+	});
+
 	it('answers writes with 503 and keeps reading while the primary is stopped, then writes again', async () => {
 		const owner = await lib.makeUser();
 		const { build, setupId } = await lib.publishedBuild(owner.id, 'Primary away');

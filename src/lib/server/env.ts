@@ -21,6 +21,8 @@ const schema = z.object({
 	DB_REPLICA_PORT: z.coerce.number().int().positive().optional(),
 	/** After a failed read, the replica is left alone this long (reads go to the primary). */
 	DB_REPLICA_PAUSE_S: z.coerce.number().positive().default(5),
+	/** A replica further behind than this (seconds) is read from no more until it catches up. */
+	DB_REPLICA_MAX_LAG_S: z.coerce.number().positive().default(5),
 	/** How long a member's next page waits for the replica to reach their own write. */
 	DB_REPLICA_WAIT_MS: z.coerce.number().int().nonnegative().default(500),
 	/** Set when running migrations as the owner account: the account whose grants they set. */

@@ -144,8 +144,12 @@ export async function writtenPosition(): Promise<string | null> {
  * Waits up to `ms` for the replica to apply everything up to `position`. False when it did not
  * get there in time, or cannot be asked (then the caller reads from the primary).
  */
-export async function replicaReached(position: string, ms: number): Promise<boolean> {
-	if (!replicaUsable()) return false;
+export async function replicaReached(
+	position: string,
+	ms: number,
+	opts: { evenIfPaused?: boolean } = {}
+): Promise<boolean> {
+	if (!opts.evenIfPaused && !replicaUsable()) return false;
 	try {
 		const rows = (await db().query('SELECT MASTER_GTID_WAIT(?, ?) AS r', {
 			type: QueryTypes.SELECT,
