@@ -103,8 +103,33 @@ async function replicaCaughtUp() {
 	expect(r).toBe(0);
 }
 
-const replicaSelects = async () =>
-	Number((await replica.sql<{ Value: string }>("SHOW GLOBAL STATUS LIKE 'Com_select'"))[0].Value);
+/**
+ * Waits until a read through `base` is answered by the replica: with the replica's applier held
+ * back, a marker written on the primary must not show (the replica still has the older note).
+ */
+async function readsFromReplica(base: string, buildId: number, setupId: number) {
+	const setNote = (note: string) =>
+		primary.sql(
+			`UPDATE ${settings.DB_NAME}.setups SET change_note = '${note.replace(/'/g, "''")}' WHERE id = ${setupId}`
+		);
+	await until(
+		'reads go to the replica',
+		async () => {
+			await replicaCaughtUp();
+			const before = await firstNote(browser(base), buildId);
+			await replica.sql('STOP SLAVE SQL_THREAD');
+			try {
+				await setNote(`marker ${Date.now()}`);
+				return (await firstNote(browser(base), buildId)) === before;
+			} finally {
+				await setNote(before);
+				await replica.sql('START SLAVE SQL_THREAD');
+			}
+		},
+		20_000
+	);
+	await replicaCaughtUp();
+}
 
 describe('a cluster of two app processes over a primary and a replica', () => {
 	it('shows a member their own saved setup at once on another process, and others once the replica has it', async () => {
@@ -207,15 +232,7 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 		);
 		expect(row.note).toBe('Saved while the replica was away');
 		// Once its pause is over, each process reads from the replica again.
-		const before = await replicaSelects();
-		await until(
-			'reads return to the replica',
-			async () => {
-				await firstNote(browser(app(0)), build.id);
-				return (await replicaSelects()) > before;
-			},
-			15_000
-		);
+		await readsFromReplica(app(0), build.id, setupId);
 	});
 
 	it('reads from the primary while the replica answers but lags, and from the replica once it has caught up', async () => {
@@ -224,15 +241,7 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 		const member = await signedIn(ready.origin, owner.email, owner.password);
 		await replicaCaughtUp();
 		// Process 2 reads from the replica (an earlier test may have set it aside for a moment).
-		const selects = await replicaSelects();
-		await until(
-			'process 2 reads the replica',
-			async () => {
-				await firstNote(browser(app(1)), build.id);
-				return (await replicaSelects()) > selects;
-			},
-			15_000
-		);
+		await readsFromReplica(app(1), build.id, setupId);
 		await replica.sql('STOP SLAVE SQL_THREAD');
 		try {
 			const saved = await saveNote(member, build.id, setupId, 'Newer than the replica');
@@ -249,15 +258,7 @@ describe('a cluster of two app processes over a primary and a replica', () => {
 			await replica.sql('START SLAVE SQL_THREAD');
 		}
 		await replicaCaughtUp();
-		const before = await replicaSelects();
-		await until(
-			'reads return to the replica',
-			async () => {
-				await firstNote(browser(app(1)), build.id);
-				return (await replicaSelects()) > before;
-			},
-			15_000
-		);
+		await readsFromReplica(app(1), build.id, setupId);
 	});
 
 	it('answers writes with 503 and keeps reading while the primary is stopped, then writes again', async () => {
