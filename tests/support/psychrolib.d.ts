@@ -7,6 +7,8 @@ declare module 'psychrolib' {
 		GetSatVapPres(tC: number): number;
 		GetHumRatioFromRelHum(tC: number, rh: number, pPa: number): number;
 		GetMoistAirDensity(tC: number, humRatio: number, pPa: number): number;
+		GetStandardAtmPressure(altitudeM: number): number;
+		GetStandardAtmTemperature(altitudeM: number): number;
 	};
 	export default psychrolib;
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import * as t from '../tuning';
-import { on, row, type CalcResult } from './types';
+import { fmt, on, row, type CalcResult } from './types';
 
 const len = z.number().positive().max(500);
 const portMode = z.enum(['height', 'duration']);
@@ -51,19 +51,35 @@ export function computeCylinder(i: CylinderInput): CalcResult {
 	const bore = toMm(i.bore);
 	const stroke = toMm(i.stroke);
 	const cc = on('bore', () => t.displacementCc(bore, stroke));
-	const rows = [row('displacement', 'Displacement', cc, 'cc', 2)];
+	const lenText = (mm: number) => `${fmt(fromMm(mm), imp ? 2 : 0)} ${lenUnit}`;
+	const rows = [
+		row(
+			'displacement',
+			'Displacement',
+			cc,
+			'cc',
+			2,
+			t.plausibilityNote('boreMm', bore, lenText) ??
+				t.plausibilityNote('strokeMm', stroke, lenText) ??
+				t.plausibilityNote('displacementCc', cc, (x) => `${fmt(x)} cc`)
+		)
+	];
 	if (imp) rows.push(row('displacementCubicIn', 'Displacement', t.ccToCubicIn(cc), 'in³', 3));
 	const notes: string[] = [];
-	if (i.chamberCc !== undefined)
+	if (i.chamberCc !== undefined) {
+		const cr = t.geometricCompressionRatio(cc, i.chamberCc);
 		rows.push(
 			row(
 				'compression',
 				'Geometric compression ratio',
-				t.geometricCompressionRatio(cc, i.chamberCc),
+				cr,
 				': 1',
-				2
+				2,
+				t.plausibilityNote('chamberCc', i.chamberCc, (x) => `${fmt(x)} cc`) ??
+					t.plausibilityNote('compressionRatio', cr, (x) => `${fmt(x)} : 1`)
 			)
 		);
+	}
 
 	const rod = i.rod === undefined ? undefined : toMm(i.rod);
 	let ex: Port | undefined;
@@ -81,7 +97,16 @@ export function computeCylinder(i: CylinderInput): CalcResult {
 		[tr, 'transfer', 'Transfer']
 	] as const) {
 		if (!p) continue;
-		rows.push(row(`${key}Duration`, `${name} duration`, p.durationDeg, '°', 1));
+		rows.push(
+			row(
+				`${key}Duration`,
+				`${name} duration`,
+				p.durationDeg,
+				'°',
+				1,
+				t.plausibilityNote(`${key}DurationDeg`, p.durationDeg, (x) => `${fmt(x)}°`)
+			)
+		);
 		rows.push(row(`${key}Opens`, `${name} opens`, p.openDeg, '° ATDC', 1));
 		rows.push(row(`${key}Top`, `${name} roof below TDC`, fromMm(p.topMm), lenUnit, lenDec));
 	}
@@ -128,11 +153,16 @@ export function computeCylinder(i: CylinderInput): CalcResult {
 			ok: 'inside the usual range',
 			loose: 'looser than the usual range'
 		}[a.verdict];
-		notes.push(`Squish ${i.squish} ${lenUnit} is ${say}. ${a.source}`);
+		const band = `${fmt(fromMm(a.minMm), lenDec)}–${fmt(fromMm(a.maxMm), lenDec)} ${lenUnit}`;
+		notes.push(
+			`Squish ${fmt(i.squish)} ${lenUnit} is ${say} for a ${lenText(bore)} bore (${band}). ${a.source}`
+		);
 		if (toMm(i.squish) < a.riskyBelowMm)
 			notes.push(
-				'Below about 0.6 mm the piston can touch the head at high rpm. Do not run it like this.'
+				`Below about ${fmt(fromMm(a.riskyBelowMm), lenDec)} ${lenUnit} on this bore the piston can touch the head at high rpm. Do not run it like this.`
 			);
+		const odd = t.plausibilityNote('squishMm', toMm(i.squish), lenText);
+		if (odd) notes.push(odd);
 	}
 	return { rows, warnings: [], notes };
 }

@@ -10,6 +10,10 @@ const pressureKinds = [
 	{ value: 'sea-level', label: 'sea-level reading (weather report)' },
 	{ value: 'station', label: 'measured at the place' }
 ];
+const timingModes = [
+	{ value: 'degrees', label: 'degrees before TDC' },
+	{ value: 'drop', label: 'a dial-gauge reading' }
+];
 const numberings = [
 	{ value: 'diameter', label: 'by orifice diameter' },
 	{ value: 'flow', label: 'by flow' }
@@ -243,8 +247,236 @@ export const FORMS: Record<CalculatorName, FieldDef[]> = {
 			hint: 'e.g. 2 for 96, 98, 100…',
 			group: 'Jetting'
 		},
-		...place('Tuned at: ', 'Where it was tuned', cap('from')),
-		...place('Target: ', 'Where it will run', cap('to'))
+		...place('Jetted at: ', 'Where it was jetted', cap('from')),
+		...place('Ridden at: ', 'Where it will be ridden', cap('to'))
+	],
+	pipe: [
+		{
+			name: 'exhaustDuration',
+			label: 'Exhaust duration',
+			kind: 'number',
+			unit: '°',
+			hint: 'Degrees the exhaust port stays open (the Cylinder sheet works it out from the port height).',
+			group: 'Port and speed'
+		},
+		{
+			name: 'rpm',
+			label: 'Engine speed the pipe should work at',
+			kind: 'number',
+			unit: 'rpm',
+			group: 'Port and speed'
+		},
+		{
+			name: 'gasTemp',
+			label: 'Exhaust gas temperature in the pipe',
+			kind: 'number',
+			dim: 'temp',
+			optional: true,
+			hint: 'Empty: Jennings’s 1,700 ft/s wave speed (about 395 °C).',
+			group: 'Port and speed'
+		}
+	],
+	'time-area': [
+		{ name: 'bore', label: 'Bore', kind: 'number', dim: 'length', group: 'Cylinder' },
+		{ name: 'stroke', label: 'Stroke', kind: 'number', dim: 'length', group: 'Cylinder' },
+		{
+			name: 'rod',
+			label: 'Con-rod length (centres)',
+			kind: 'number',
+			dim: 'length',
+			group: 'Cylinder'
+		},
+		{
+			name: 'rpm',
+			label: 'Engine speed of peak power',
+			kind: 'number',
+			unit: 'rpm',
+			group: 'Cylinder'
+		},
+		{
+			name: 'exhaustWidth',
+			label: 'Exhaust port width (chord)',
+			kind: 'number',
+			dim: 'length',
+			hint: 'Add the auxiliary ports’ widths if they open with the main port.',
+			group: 'Exhaust'
+		},
+		{
+			name: 'exhaustMode',
+			label: 'Exhaust port: I know its',
+			kind: 'select',
+			options: portModes,
+			group: 'Exhaust'
+		},
+		{
+			name: 'exhaust',
+			label: 'Exhaust port',
+			kind: 'number',
+			dim: 'length',
+			modeField: 'exhaustMode',
+			hint: 'Height: roof below the crown edge at TDC. Duration: degrees open.',
+			group: 'Exhaust'
+		},
+		{
+			name: 'transferWidth',
+			label: 'Transfer ports, widths added together',
+			kind: 'number',
+			dim: 'length',
+			group: 'Transfers'
+		},
+		{
+			name: 'transferMode',
+			label: 'Transfer ports: I know their',
+			kind: 'select',
+			options: portModes,
+			group: 'Transfers'
+		},
+		{
+			name: 'transfer',
+			label: 'Transfer ports',
+			kind: 'number',
+			dim: 'length',
+			modeField: 'transferMode',
+			group: 'Transfers'
+		}
+	],
+	carb: [
+		{ name: 'displacementCc', label: 'Displacement', kind: 'number', unit: 'cc', group: 'Engine' },
+		{
+			name: 'peakRpm',
+			label: 'Engine speed of peak power',
+			kind: 'number',
+			unit: 'rpm',
+			group: 'Engine'
+		},
+		{
+			name: 'k',
+			label: 'Constant K',
+			kind: 'number',
+			unit: '×',
+			hint: 'About 0.65 for broad road power, 0.9 for racing; 0.8 if unsure.',
+			group: 'Engine'
+		}
+	],
+	'dial-gauge': [
+		{ name: 'stroke', label: 'Stroke', kind: 'number', dim: 'length', group: 'Crank' },
+		{
+			name: 'rod',
+			label: 'Con-rod length (centres)',
+			kind: 'number',
+			dim: 'length',
+			group: 'Crank'
+		},
+		{
+			name: 'mode',
+			label: 'I have',
+			kind: 'select',
+			options: timingModes,
+			group: 'Ignition timing'
+		},
+		{
+			name: 'value',
+			label: 'Timing',
+			kind: 'number',
+			dim: 'length',
+			modeField: 'mode',
+			modeValue: 'degrees',
+			optional: true,
+			hint: 'Degrees before TDC, or the gauge reading below TDC.',
+			group: 'Ignition timing'
+		},
+		{
+			name: 'stopFirst',
+			label: 'Wheel at the stop, turning forward',
+			kind: 'number',
+			unit: '°',
+			optional: true,
+			group: 'Degree wheel'
+		},
+		{
+			name: 'stopSecond',
+			label: 'Wheel at the stop, turning back',
+			kind: 'number',
+			unit: '°',
+			optional: true,
+			group: 'Degree wheel'
+		},
+		{
+			name: 'opens',
+			label: 'Wheel where a port opens',
+			kind: 'number',
+			unit: '°',
+			optional: true,
+			group: 'Degree wheel'
+		},
+		{
+			name: 'closes',
+			label: 'Wheel where it closes',
+			kind: 'number',
+			unit: '°',
+			optional: true,
+			group: 'Degree wheel'
+		}
+	],
+	premix: [
+		{ name: 'fuel', label: 'Fuel', kind: 'number', dim: 'volume', group: 'Mixing' },
+		{ name: 'ratio', label: 'Ratio, fuel to oil', kind: 'number', unit: ': 1', group: 'Mixing' },
+		{
+			name: 'tank',
+			label: 'Mix already in the tank',
+			kind: 'number',
+			dim: 'volume',
+			optional: true,
+			group: 'Topping up'
+		},
+		{
+			name: 'currentRatio',
+			label: 'Its ratio',
+			kind: 'number',
+			unit: ': 1',
+			optional: true,
+			group: 'Topping up'
+		},
+		{
+			name: 'add',
+			label: 'Fuel you add',
+			kind: 'number',
+			dim: 'volume',
+			optional: true,
+			group: 'Topping up'
+		},
+		{
+			name: 'targetRatio',
+			label: 'Ratio you want',
+			kind: 'number',
+			unit: ': 1',
+			optional: true,
+			group: 'Topping up'
+		}
+	],
+	belt: [
+		{
+			name: 'drive',
+			label: 'Belt pitch diameter on the variator (drive)',
+			kind: 'number',
+			dim: 'length',
+			group: 'Pulleys'
+		},
+		{
+			name: 'driven',
+			label: 'Belt pitch diameter on the clutch pulley (driven)',
+			kind: 'number',
+			dim: 'length',
+			group: 'Pulleys'
+		},
+		{
+			name: 'centre',
+			label: 'Centre distance between the shafts',
+			kind: 'number',
+			dim: 'length',
+			optional: true,
+			group: 'Belt'
+		}
 	]
 };
 
@@ -256,9 +488,9 @@ export const DEFAULTS: Record<CalculatorName, Record<Units, FormValues>> = {
 			rod: '85',
 			chamberCc: '6.5',
 			exhaustMode: 'height',
-			exhaust: '12.5',
+			exhaust: '20.5',
 			transferMode: 'height',
-			transfer: '18',
+			transfer: '29.5',
 			rpm: '10000',
 			squish: '0.8'
 		},
@@ -268,9 +500,9 @@ export const DEFAULTS: Record<CalculatorName, Record<Units, FormValues>> = {
 			rod: '3.3465',
 			chamberCc: '6.5',
 			exhaustMode: 'height',
-			exhaust: '0.4921',
+			exhaust: '0.8071',
 			transferMode: 'height',
-			transfer: '0.7087',
+			transfer: '1.1614',
 			rpm: '10000',
 			squish: '0.0315'
 		}
@@ -356,5 +588,69 @@ export const DEFAULTS: Record<CalculatorName, Record<Units, FormValues>> = {
 			toPressure: '',
 			toPressureKind: 'sea-level'
 		}
+	},
+	pipe: {
+		metric: { exhaustDuration: '186', rpm: '9500', gasTemp: '' },
+		imperial: { exhaustDuration: '186', rpm: '9500', gasTemp: '' }
+	},
+	'time-area': {
+		metric: {
+			bore: '47',
+			stroke: '39.2',
+			rod: '85',
+			rpm: '9500',
+			exhaustWidth: '30',
+			exhaustMode: 'duration',
+			exhaust: '186',
+			transferWidth: '52',
+			transferMode: 'duration',
+			transfer: '126'
+		},
+		imperial: {
+			bore: '1.8504',
+			stroke: '1.5433',
+			rod: '3.3465',
+			rpm: '9500',
+			exhaustWidth: '1.1811',
+			exhaustMode: 'duration',
+			exhaust: '186',
+			transferWidth: '2.0472',
+			transferMode: 'duration',
+			transfer: '126'
+		}
+	},
+	carb: {
+		metric: { displacementCc: '68', peakRpm: '9500', k: '0.8' },
+		imperial: { displacementCc: '68', peakRpm: '9500', k: '0.8' }
+	},
+	'dial-gauge': {
+		metric: {
+			stroke: '39.2',
+			rod: '85',
+			mode: 'degrees',
+			value: '17',
+			stopFirst: '',
+			stopSecond: '',
+			opens: '',
+			closes: ''
+		},
+		imperial: {
+			stroke: '1.5433',
+			rod: '3.3465',
+			mode: 'degrees',
+			value: '17',
+			stopFirst: '',
+			stopSecond: '',
+			opens: '',
+			closes: ''
+		}
+	},
+	premix: {
+		metric: { fuel: '5', ratio: '50', tank: '', currentRatio: '', add: '', targetRatio: '' },
+		imperial: { fuel: '1.5', ratio: '50', tank: '', currentRatio: '', add: '', targetRatio: '' }
+	},
+	belt: {
+		metric: { drive: '58', driven: '118', centre: '268' },
+		imperial: { drive: '2.2835', driven: '4.6457', centre: '10.5512' }
 	}
 };

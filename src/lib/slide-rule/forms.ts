@@ -3,7 +3,7 @@ import * as t from '../tuning';
 import type { Units } from './types';
 
 /** What a number measures, so switching metric ↔ imperial converts what was typed. */
-export type Dimension = 'length' | 'elevation' | 'temp' | 'pressure' | 'speed' | 'none';
+export type Dimension = 'length' | 'elevation' | 'temp' | 'pressure' | 'speed' | 'volume' | 'none';
 
 export type FieldDef = {
 	name: string;
@@ -15,19 +15,23 @@ export type FieldDef = {
 	hint?: string;
 	options?: { value: string; label: string }[];
 	optional?: boolean;
-	/** A select whose value 'duration' turns this length into degrees. */
+	/** A select whose value `modeValue` ('duration' unless given) turns this length into degrees. */
 	modeField?: string;
+	modeValue?: string;
 	group: string;
 };
 
 /** The dimension a field has right now (a port given as a duration is in degrees). */
+const inDegrees = (f: FieldDef, values: FormValues) =>
+	!!f.modeField && values[f.modeField] === (f.modeValue ?? 'duration');
+
 export function dimOf(f: FieldDef, values: FormValues): Dimension {
-	if (f.modeField && values[f.modeField] === 'duration') return 'none';
+	if (inDegrees(f, values)) return 'none';
 	return f.dim ?? 'none';
 }
 
 export function unitOf(f: FieldDef, values: FormValues, units: Units): string {
-	if (f.modeField && values[f.modeField] === 'duration') return '°';
+	if (inDegrees(f, values)) return '°';
 	return f.dim ? UNIT_LABEL[f.dim][units] : (f.unit ?? '');
 }
 
@@ -37,6 +41,7 @@ export const UNIT_LABEL: Record<Dimension, Record<Units, string>> = {
 	temp: { metric: '°C', imperial: '°F' },
 	pressure: { metric: 'hPa', imperial: 'inHg' },
 	speed: { metric: 'km/h', imperial: 'mph' },
+	volume: { metric: 'L', imperial: 'US gal' },
 	none: { metric: '', imperial: '' }
 };
 
@@ -46,6 +51,7 @@ const TO_IMPERIAL: Record<Dimension, (x: number) => number> = {
 	temp: t.cToF,
 	pressure: (hPa) => t.kpaToInHg(hPa / 10),
 	speed: t.kmhToMph,
+	volume: t.lToGal,
 	none: (x) => x
 };
 const TO_METRIC: Record<Dimension, (x: number) => number> = {
@@ -54,6 +60,7 @@ const TO_METRIC: Record<Dimension, (x: number) => number> = {
 	temp: t.fToC,
 	pressure: (inHg) => t.inHgToKpa(inHg) * 10,
 	speed: t.mphToKmh,
+	volume: t.galToL,
 	none: (x) => x
 };
 const DECIMALS: Record<Dimension, Record<Units, number>> = {
@@ -62,6 +69,7 @@ const DECIMALS: Record<Dimension, Record<Units, number>> = {
 	temp: { metric: 1, imperial: 1 },
 	pressure: { metric: 1, imperial: 2 },
 	speed: { metric: 1, imperial: 1 },
+	volume: { metric: 2, imperial: 3 },
 	none: { metric: 6, imperial: 6 }
 };
 

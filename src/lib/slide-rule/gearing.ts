@@ -1,8 +1,12 @@
 import { z } from 'zod';
 import * as t from '../tuning';
-import { FieldError, on, row, type CalcResult } from './types';
+import { FieldError, fmt, on, row, type CalcResult } from './types';
 
-const teeth = z.number().int().positive().max(200);
+const teeth = z
+	.number()
+	.int({ error: 'Teeth are counted in whole numbers: type the number stamped on the gear.' })
+	.positive()
+	.max(200);
 
 export const gearingSchema = z.object({
 	units: z.enum(['metric', 'imperial']),
@@ -41,9 +45,10 @@ export function computeGearing(i: GearingInput): CalcResult {
 	const circumference = t.tyreCircumferenceMm(i.tyre, i.rollingFactor);
 	const fd = t.finalDriveRatio(stages);
 	const top = t.overallReduction(i.topCvt, stages);
-	const topKmh = t.roadSpeedKmh(i.peakRpm, top, circumference);
+	const topKmh = t.gearingLimitedSpeedKmh(i.peakRpm, i.topCvt, stages, i.tyre, i.rollingFactor);
+	const speedText = (kmh: number) => `${fmt(fromKmh(kmh), 0)} ${speedUnit}`;
 	const rows = [
-		row('finalDrive', 'Final drive ratio', fd, ': 1', 3),
+		row('finalDrive', 'Final drive ratio', fd, ': 1', 3, t.plausibilityNote('finalDriveRatio', fd)),
 		row('overallTop', 'Overall reduction at top CVT ratio', top, ': 1', 3),
 		imp
 			? row('tyreDiameter', 'Tyre diameter', t.mmToIn(diameter), 'in', 2)
@@ -51,11 +56,29 @@ export function computeGearing(i: GearingInput): CalcResult {
 		imp
 			? row('circumference', 'Rolling circumference', t.mmToIn(circumference), 'in', 2)
 			: row('circumference', 'Rolling circumference', circumference, 'mm', 1),
-		row('topSpeed', 'Gearing-limited speed at peak rpm', fromKmh(topKmh), speedUnit, 1)
+		row(
+			'topSpeed',
+			'Gearing-limited speed at peak rpm',
+			fromKmh(topKmh),
+			speedUnit,
+			1,
+			t.plausibilityNote('topCvtRatio', i.topCvt, (x) => `${fmt(x)} : 1`) ??
+				t.plausibilityNote('rpm', i.peakRpm, (x) => `${fmt(x)} rpm`) ??
+				t.plausibilityNote('speedKmh', topKmh, speedText)
+		)
 	];
 	if (i.launchCvt !== undefined) {
 		const launch = t.overallReduction(i.launchCvt, stages);
-		rows.push(row('overallLaunch', 'Overall reduction at launch CVT ratio', launch, ': 1', 3));
+		rows.push(
+			row(
+				'overallLaunch',
+				'Overall reduction at launch CVT ratio',
+				launch,
+				': 1',
+				3,
+				t.plausibilityNote('launchCvtRatio', i.launchCvt)
+			)
+		);
 		rows.push(
 			row(
 				'launchSpeed',
@@ -84,6 +107,22 @@ export function computeGearing(i: GearingInput): CalcResult {
 		notes.push(
 			'Inch tyre sizes carry no aspect ratio; 100 % is assumed, so the diameter is approximate.'
 		);
+	if (tyre.loadIndex !== undefined) {
+		const kg = t.loadIndexKg(tyre.loadIndex);
+		if (kg !== undefined)
+			rows.push(
+				imp
+					? row('tyreLoad', `Tyre load index ${tyre.loadIndex}`, t.kgToLb(kg), 'lb', 0)
+					: row('tyreLoad', `Tyre load index ${tyre.loadIndex}`, kg, 'kg', 0)
+			);
+		else notes.push(`Load index ${tyre.loadIndex}: read its load off the maker's table.`);
+	}
+	const marked = [
+		tyre.construction && `${tyre.construction} construction`,
+		tyre.tubeless !== undefined && (tyre.tubeless ? 'tubeless (TL)' : 'tube type (TT)'),
+		tyre.reinforced && 'reinforced'
+	].filter(Boolean);
+	if (marked.length) notes.push(`The marking also says: ${marked.join(', ')}.`);
 	if (tyre.speedSymbol) {
 		const rated = t.speedSymbolKmh(tyre.speedSymbol);
 		rows.push(
@@ -97,7 +136,8 @@ export function computeGearing(i: GearingInput): CalcResult {
 		gearingLimitedKmh: topKmh,
 		tyreSpeedSymbol: tyre.speedSymbol,
 		stockKmh: i.stockSpeed === undefined ? undefined : toKmh(i.stockSpeed),
-		brakesUpgraded: i.brakesUpgraded
+		brakesUpgraded: i.brakesUpgraded,
+		units: i.units
 	});
 	return { rows, warnings, notes };
 }

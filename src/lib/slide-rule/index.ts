@@ -2,11 +2,17 @@ import type { z } from 'zod';
 import { airSchema, computeAir } from './air-and-jets';
 import { computeCylinder, cylinderSchema } from './cylinder';
 import { computeGearing, gearingSchema } from './gearing';
+import { beltSchema, computeBelt } from './belt';
+import { carbSchema, computeCarb } from './carb';
+import { computeDialGauge, dialGaugeSchema } from './dial-gauge';
+import { computePipe, pipeSchema } from './pipe';
+import { computePremix, premixSchema } from './premix';
 import { computeRetune, retuneSchema } from './retune';
+import { computeTimeArea, timeAreaSchema } from './time-area';
 import { FieldError, type CalcOutcome, type CalcResult } from './types';
 
 export * from './types';
-export { SEASONS } from './retune';
+export { PLACES, saySteps } from './retune';
 
 type Calculator = { schema: z.ZodType; compute: (input: never) => CalcResult };
 
@@ -15,7 +21,13 @@ export const CALCULATORS = {
 	cylinder: { schema: cylinderSchema, compute: computeCylinder },
 	gearing: { schema: gearingSchema, compute: computeGearing },
 	'air-and-jets': { schema: airSchema, compute: computeAir },
-	retune: { schema: retuneSchema, compute: computeRetune }
+	retune: { schema: retuneSchema, compute: computeRetune },
+	pipe: { schema: pipeSchema, compute: computePipe },
+	'time-area': { schema: timeAreaSchema, compute: computeTimeArea },
+	carb: { schema: carbSchema, compute: computeCarb },
+	'dial-gauge': { schema: dialGaugeSchema, compute: computeDialGauge },
+	premix: { schema: premixSchema, compute: computePremix },
+	belt: { schema: beltSchema, compute: computeBelt }
 } satisfies Record<string, Calculator>;
 
 export type CalculatorName = keyof typeof CALCULATORS;
@@ -50,6 +62,16 @@ function plain(i: z.core.$ZodIssue, input: unknown): string {
 /** Validates and computes; input problems come back as issues naming the field, never as a throw. */
 export function runCalculator(name: CalculatorName, input: unknown): CalcOutcome {
 	const calc: Calculator = CALCULATORS[name];
+	if (!input || typeof input !== 'object' || Array.isArray(input))
+		return {
+			ok: false,
+			issues: [
+				{
+					path: '',
+					message: `Send a JSON object of the inputs, such as {"units": "metric", …}; got ${input === null ? 'null' : Array.isArray(input) ? 'an array' : `a ${typeof input}`}.`
+				}
+			]
+		};
 	const parsed = calc.schema.safeParse(input);
 	if (!parsed.success) {
 		return {

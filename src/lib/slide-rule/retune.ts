@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import * as t from '../tuning';
-import { conditions, placeShape } from './air-and-jets';
-import { changeRow, on, row, type CalcResult } from './types';
+import { airRows, conditions, placeShape } from './air-and-jets';
+import { changeRow, fmt, on, row, type CalcResult } from './types';
 
 export const retuneSchema = z.object({
 	units: z.enum(['metric', 'imperial']),
@@ -21,30 +21,22 @@ export const retuneSchema = z.object({
 });
 export type RetuneInput = z.infer<typeof retuneSchema>;
 
-const place = (i: RetuneInput, side: 'from' | 'to') =>
-	side === 'from'
-		? {
-				elevation: i.fromElevation,
-				temp: i.fromTemp,
-				humidity: i.fromHumidity,
-				pressure: i.fromPressure,
-				pressureKind: i.fromPressureKind
-			}
-		: {
-				elevation: i.toElevation,
-				temp: i.toTemp,
-				humidity: i.toHumidity,
-				pressure: i.toPressure,
-				pressureKind: i.toPressureKind
-			};
+/** The two places of a retune: where the engine was jetted, and where it will be ridden. */
+export const PLACES = { from: 'where it was jetted', to: 'where it will be ridden' } as const;
 
-/** Seasons a shop can pick for the target place (typical mid-latitude values, our own presets). */
-export const SEASONS = {
-	winter: { tempC: 2, humidity: 80 },
-	spring: { tempC: 12, humidity: 70 },
-	summer: { tempC: 27, humidity: 55 },
-	autumn: { tempC: 12, humidity: 75 }
-} as const;
+const place = (i: RetuneInput, side: 'from' | 'to') => ({
+	elevation: i[`${side}Elevation`],
+	temp: i[`${side}Temp`],
+	humidity: i[`${side}Humidity`],
+	pressure: i[`${side}Pressure`],
+	pressureKind: i[`${side}PressureKind`]
+});
+
+/** "2 steps leaner", "1 step richer", "no change": the words always match the number. */
+export function saySteps(n: number): string {
+	if (n === 0) return 'no change';
+	return `${Math.abs(n)} step${Math.abs(n) === 1 ? '' : 's'} ${n > 0 ? 'richer' : 'leaner'}`;
+}
 
 export function computeRetune(i: RetuneInput): CalcResult {
 	const imp = i.units === 'imperial';
@@ -52,41 +44,60 @@ export function computeRetune(i: RetuneInput): CalcResult {
 	const to = conditions(place(i, 'to'), imp, 'to');
 	const a = t.airAt(from);
 	const b = t.airAt(to);
-	const physics = t.retargetJet(i.jet, a.densityKgM3, b.densityKgM3, i.numbering);
+	const physics = t.retargetJetForAir(i.jet, from, to, i.numbering);
 	const rule = on('toElevation', () =>
 		t.ruleOfThumbJet(i.jet, from.elevationM, to.elevationM, i.step)
 	);
-	const physicsJet = t.nearestJet(physics, i.step);
-	const ruleJet = on('step', () => t.nearestJet(rule, i.step));
+	const p = t.jetOnLadder(i.jet, physics, i.step);
+	const r = t.jetOnLadder(i.jet, rule, i.step);
 	const rows = [
-		row('fromDensity', 'Air density where it was tuned', a.densityKgM3, 'kg/m³', 4),
-		row('toDensity', 'Air density at the target', b.densityKgM3, 'kg/m³', 4),
-		changeRow('densityChange', 'Density change', 100 * (b.densityKgM3 / a.densityKgM3 - 1), '%', 1),
-		row('physics', 'Main jet by the air-density physics', physics, '', 2),
-		row('physicsJet', 'Nearest real jet (physics)', physicsJet, '', 1),
+		...airRows(a, imp, 'from', 'jetted'),
+		...airRows(b, imp, 'to', 'ridden'),
+		changeRow(
+			'dryDensityChange',
+			'Dry-air density change',
+			100 * (b.dryDensityKgM3 / a.dryDensityKgM3 - 1),
+			'%',
+			1
+		),
+		row('physics', 'Main jet by the air physics (exact)', physics, '', 2),
+		row('physicsJet', 'Jet to fit (physics)', p.size, '', 2),
+		changeRow('physicsSteps', 'Steps from your jet (physics)', p.steps, 'steps', 0),
 		row('rule', 'Main jet by the 1,000 ft rule of thumb', rule, '', 2),
-		row('ruleJet', 'Nearest real jet (rule of thumb)', ruleJet, '', 1)
+		row('ruleJet', 'Jet to fit (rule of thumb)', r.size, '', 2),
+		changeRow('ruleSteps', 'Steps from your jet (rule of thumb)', r.steps, 'steps', 0)
 	];
-	const steps = (x: number) => Math.round((x - i.jet) / i.step);
-	const say = (n: number) =>
-		n === 0
-			? 'no change'
-			: `${Math.abs(n)} step${Math.abs(n) === 1 ? '' : 's'} ${n > 0 ? 'richer' : 'leaner'}`;
 	const notes = [
-		`Physics: ${say(steps(physicsJet))}. Rule of thumb: ${say(steps(ruleJet))}.`,
-		i.numbering === 'diameter'
-			? 'For jets numbered by orifice diameter the physics scales the size with the fourth root of air density; the one-size-per-1,000-ft rule (common practice, no published source) moves two to three times as far, and ignores temperature and humidity.'
-			: 'For jets numbered by flow the physics scales the size with the square root of air density; the one-size-per-1,000-ft rule is common practice with no published source, and ignores temperature and humidity.',
-		'Start from the physics jet, change one thing at a time, and let the spark plug colour and the head temperature decide.'
+		`Physics: ${saySteps(p.steps)}, to ${fmt(p.size)}. Rule of thumb: ${saySteps(r.steps)}, to ${fmt(r.size)}.`,
+		ruleComparison(i.jet, physics, rule, i.numbering),
+		'Both answers sit on your own ladder: your jet plus or minus whole steps. Start from the physics jet, change one thing at a time, and let the spark plug colour and the head temperature decide.'
 	];
 	const warnings = t.speedWarnings({
-		jetChange: {
-			fromSize: physics,
-			toSize: ruleJet,
-			fromDensityKgM3: b.densityKgM3,
-			toDensityKgM3: b.densityKgM3,
-			numbering: i.numbering
-		}
+		jetChange: { fromSize: i.jet, toSize: r.size, from, to, numbering: i.numbering },
+		units: i.units
 	});
 	return { rows, warnings, notes };
+}
+
+/** How far the rule moves against the physics, for the case on the sheet. */
+function ruleComparison(jet: number, physics: number, rule: number, numbering: string): string {
+	const scale =
+		numbering === 'diameter'
+			? 'For jets numbered by orifice diameter the physics moves the size with the square root of the jet area it needs'
+			: 'For jets numbered by flow the physics moves the size with the jet area it needs';
+	const dp = physics - jet;
+	const dr = rule - jet;
+	let how: string;
+	if (Math.abs(dp) < 1e-9)
+		how =
+			Math.abs(dr) < 1e-9
+				? 'here neither moves.'
+				: 'here the physics does not move at all, and the rule moves by elevation alone.';
+	else if (Math.abs(dr) < 1e-9)
+		how =
+			'here the rule does not move (same elevation) while the temperature, humidity or pressure moves the physics.';
+	else if (Math.sign(dp) !== Math.sign(dr))
+		how = 'here the rule even moves the other way, because it knows only the elevation.';
+	else how = `here the rule moves ${fmt(dr / dp, 1)} times as far as the physics.`;
+	return `${scale}; the one-size-per-1,000-ft rule (common practice, no published source) ignores temperature, humidity and pressure: ${how}`;
 }

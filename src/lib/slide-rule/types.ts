@@ -73,3 +73,21 @@ export const changeRow = (
 	unit: string,
 	decimals: number
 ): ResultRow => ({ ...row(key, label, value, unit, decimals), signed: true });
+
+/** Checks a typed value against a range given in the reader's own units, naming the field. */
+export function within(path: string, value: number, lo: number, hi: number, unit: string): number {
+	if (value < lo || value > hi) {
+		const u = unit ? ` ${unit}` : '';
+		throw new FieldError(path, `Must be between ${fmt(lo)} and ${fmt(hi)}${u}.`);
+	}
+	return value;
+}
+
+/** A number as a message prints it: a real minus sign, thousands grouped, no float dust. */
+export const fmt = (v: number, decimals?: number): string => {
+	const s = (decimals === undefined ? Number(v.toPrecision(6)) : v).toLocaleString('en-GB', {
+		maximumFractionDigits: decimals ?? 4,
+		minimumFractionDigits: decimals ?? 0
+	});
+	return s.replace('-', '\u2212');
+};

@@ -36,12 +36,20 @@ export function saturationVapourPressurePa(tempC: number): number {
 	return 611.21 * Math.exp((18.678 - tempC / 234.5) * (tempC / (257.14 + tempC)));
 }
 
-/** Total density of moist air ρ = (p − pv)/(Rd·T) + pv/(Rv·T), pv = RH · es(t). */
-export function moistAirDensity(
-	pressurePa: number,
-	tempC: number,
-	relativeHumidity: number
-): number {
+export type MoistAir = {
+	/** Partial pressure of the water vapour, Pa. */
+	vapourPressurePa: number;
+	/** Mass of dry air per volume of the mixture (the part that carries oxygen), kg/m³. */
+	dryDensityKgM3: number;
+	/** Dry air and vapour together, kg/m³. */
+	densityKgM3: number;
+};
+
+/**
+ * Moist air as two ideal gases sharing the pressure: ρ_dry = (p − pv)/(Rd·T),
+ * ρ = ρ_dry + pv/(Rv·T), pv = RH · es(t).
+ */
+export function moistAir(pressurePa: number, tempC: number, relativeHumidity: number): MoistAir {
 	between('pressurePa', pressurePa, 1000, 200000);
 	between('tempC', tempC, -80, 100);
 	between('relativeHumidity', relativeHumidity, 0, 1);
@@ -51,7 +59,17 @@ export function moistAirDensity(
 			`pressurePa must exceed the vapour pressure (${pv.toFixed(0)} Pa) at that temperature and humidity`
 		);
 	const t = tempC + 273.15;
-	return (pressurePa - pv) / (RD * t) + pv / (RV * t);
+	const dry = (pressurePa - pv) / (RD * t);
+	return { vapourPressurePa: pv, dryDensityKgM3: dry, densityKgM3: dry + pv / (RV * t) };
+}
+
+/** Total density of moist air ρ = (p − pv)/(Rd·T) + pv/(Rv·T), pv = RH · es(t). */
+export function moistAirDensity(
+	pressurePa: number,
+	tempC: number,
+	relativeHumidity: number
+): number {
+	return moistAir(pressurePa, tempC, relativeHumidity).densityKgM3;
 }
 
 /** The ISA altitude with the same density (AMS Glossary): DA = 44330.8 · [1 − (ρ/1.225)^0.234969] m. */
@@ -79,7 +97,7 @@ export type AirConditions = {
 	pressureKind?: 'station' | 'sea-level';
 };
 
-export type Air = { densityKgM3: number; densityAltitudeM: number; pressurePa: number };
+export type Air = MoistAir & { densityAltitudeM: number; pressurePa: number };
 
 /** Air at a place: the given pressure (converted from sea level if so marked) or ISA pressure at that elevation. */
 export function airAt(conditions: AirConditions): Air {
@@ -93,8 +111,8 @@ export function airAt(conditions: AirConditions): Air {
 	if (pressurePa === undefined) p = isaAtmosphere(elevationM).pressurePa;
 	else if (pressureKind === 'sea-level') p = stationPressureFromSeaLevel(pressurePa, elevationM);
 	else p = between('pressurePa', pressurePa, 1000, 200000);
-	const densityKgM3 = moistAirDensity(p, tempC, relativeHumidity);
-	return { densityKgM3, densityAltitudeM: densityAltitudeM(densityKgM3), pressurePa: p };
+	const air = moistAir(p, tempC, relativeHumidity);
+	return { ...air, densityAltitudeM: densityAltitudeM(air.densityKgM3), pressurePa: p };
 }
 
 /**
@@ -113,7 +131,5 @@ export function dryAirPressureKpa(
 	tempC: number,
 	relativeHumidity: number
 ): number {
-	between('pressurePa', pressurePa, 1000, 200000);
-	between('relativeHumidity', relativeHumidity, 0, 1);
-	return (pressurePa - relativeHumidity * saturationVapourPressurePa(tempC)) / 1000;
+	return (pressurePa - moistAir(pressurePa, tempC, relativeHumidity).vapourPressurePa) / 1000;
 }

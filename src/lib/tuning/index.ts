@@ -3,6 +3,8 @@ export * from './air';
 export * from './engine';
 export * from './gearing';
 export * from './jetting';
+export * from './plausible';
+export * from './premix';
 export * from './safety';
 export * from './tyres';
 export * from './units';

@@ -1,7 +1,9 @@
 // Safety warnings with stable codes: the Slide rule shows them, moderation reuses the codes.
 import { finite, positive } from './check';
-import { retargetJet, type JetNumbering } from './jetting';
+import type { AirConditions } from './air';
+import { retargetJetForAir, type JetNumbering } from './jetting';
 import { speedSymbolKmh } from './tyres';
+import { cToF, kmhToMph } from './units';
 
 export type HeadTempSensor = 'plug-washer' | 'head-stud' | 'coolant';
 
@@ -16,10 +18,12 @@ export type SpeedWarningInput = {
 	jetChange?: {
 		fromSize: number;
 		toSize: number;
-		fromDensityKgM3: number;
-		toDensityKgM3: number;
+		from: AirConditions;
+		to: AirConditions;
 		numbering?: JetNumbering;
 	};
+	/** The reader's units: every number in a message follows them (inputs stay SI). */
+	units?: 'metric' | 'imperial';
 };
 
 export type WarningCode =
@@ -48,6 +52,10 @@ export function speedWarnings(input: SpeedWarningInput): SpeedWarning[] {
 	const measured = opt('measuredKmh', input.measuredKmh);
 	const geared = opt('gearingLimitedKmh', input.gearingLimitedKmh);
 	const stock = opt('stockKmh', input.stockKmh);
+	const imp = input.units === 'imperial';
+	const speed = (kmh: number) =>
+		imp ? `${Math.round(kmhToMph(kmh))} mph` : `${Math.round(kmh)} km/h`;
+	const temp = (c: number) => (imp ? `${Math.round(cToF(c))} °F` : `${Math.round(c)} °C`);
 	const out: SpeedWarning[] = [];
 	const top = Math.max(measured ?? 0, geared ?? 0);
 
@@ -57,7 +65,7 @@ export function speedWarnings(input: SpeedWarningInput): SpeedWarning[] {
 			out.push({
 				code: 'tyre-speed-rating',
 				severity: 'danger',
-				message: `${Math.round(top)} km/h is above the tyre's speed symbol ${input.tyreSpeedSymbol.toUpperCase()} (${rated} km/h). Fit tyres rated for the speed before riding this fast.`
+				message: `${speed(top)} is above the tyre's speed symbol ${input.tyreSpeedSymbol.toUpperCase()} (${speed(rated)}). Fit tyres rated for the speed before riding this fast.`
 			});
 		}
 	}
@@ -71,7 +79,7 @@ export function speedWarnings(input: SpeedWarningInput): SpeedWarning[] {
 		out.push({
 			code: 'brakes-not-upgraded',
 			severity: 'caution',
-			message: `Top speed ${Math.round(reached)} km/h is over 1.5 × the stock ${Math.round(stock)} km/h and no brake upgrade is recorded. Stopping distance grows with the square of speed; have the brakes checked by a licensed mechanic.`
+			message: `Top speed ${speed(reached)} is over 1.5 × the stock ${speed(stock)} and no brake upgrade is recorded. Stopping distance grows with the square of speed; have the brakes checked by a licensed mechanic.`
 		});
 	}
 	if (input.headTempC !== undefined) {
@@ -86,18 +94,13 @@ export function speedWarnings(input: SpeedWarningInput): SpeedWarning[] {
 			out.push({
 				code: 'head-temperature',
 				severity: 'caution',
-				message: `${Math.round(input.headTempC)} °C at the ${sensor} is above the usual caution level of ${level} °C (common practice, no published source). Check for a lean mixture or too much ignition advance before the next run.`
+				message: `${temp(input.headTempC)} at the ${sensor} is above the usual caution level of ${temp(level)} (common practice, no published source). Check for a lean mixture or too much ignition advance before the next run.`
 			});
 		}
 	}
 	if (input.jetChange) {
 		const j = input.jetChange;
-		const physics = retargetJet(
-			j.fromSize,
-			j.fromDensityKgM3,
-			j.toDensityKgM3,
-			j.numbering ?? 'diameter'
-		);
+		const physics = retargetJetForAir(j.fromSize, j.from, j.to, j.numbering ?? 'diameter');
 		positive('jetChange.toSize', j.toSize);
 		if (j.toSize < physics * (1 - LEAN_TOLERANCE)) {
 			out.push({

@@ -42,3 +42,11 @@ export const kgToLb = (kg: number) => nonNegative('kg', kg) / KG_PER_LB;
 /** 1 in³ = 16.387064 cm³ exactly (25.4³ mm³). */
 export const ccToCubicIn = (cc: number) => nonNegative('cc', cc) / 16.387064;
 export const cubicInToCc = (cubicIn: number) => nonNegative('cubicIn', cubicIn) * 16.387064;
+
+/** US liquid gallon = 231 in³ = 3.785411784 L exactly; US fluid ounce = 1/128 gallon. */
+const L_PER_GAL = 3.785411784;
+const ML_PER_FLOZ = 29.5735295625;
+export const galToL = (gal: number) => nonNegative('gal', gal) * L_PER_GAL;
+export const lToGal = (l: number) => nonNegative('l', l) / L_PER_GAL;
+export const flOzToMl = (flOz: number) => nonNegative('flOz', flOz) * ML_PER_FLOZ;
+export const mlToFlOz = (ml: number) => nonNegative('ml', ml) / ML_PER_FLOZ;

@@ -21,7 +21,8 @@ describe('speedWarnings', () => {
 	});
 	it('flags a jet leaner than the change of air suggests', () => {
 		// Same air: the physics keeps 100; a 94 is leaner than that.
-		const j = { fromSize: 100, fromDensityKgM3: 1.2, toDensityKgM3: 1.2 };
+		const air = { elevationM: 0, tempC: 15, relativeHumidity: 0.5 };
+		const j = { fromSize: 100, from: air, to: air };
 		expect(codes({ jetChange: { ...j, toSize: 94 } })).toEqual(['leaner-than-physics']);
 		expect(codes({ jetChange: { ...j, toSize: 100 } })).toEqual([]);
 		expect(codes({ jetChange: { ...j, toSize: 104 } })).toEqual([]);
@@ -37,7 +38,12 @@ describe('speedWarnings', () => {
 		);
 		expect(() =>
 			t.speedWarnings({
-				jetChange: { fromSize: 100, toSize: -1, fromDensityKgM3: 1.2, toDensityKgM3: 1.2 }
+				jetChange: {
+					fromSize: 100,
+					toSize: -1,
+					from: { elevationM: 0, tempC: 15, relativeHumidity: 0 },
+					to: { elevationM: 0, tempC: 15, relativeHumidity: 0 }
+				}
 			})
 		).toThrow(/^jetChange.toSize/);
 	});

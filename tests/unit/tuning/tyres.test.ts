@@ -7,10 +7,16 @@ describe('tyre sizes (ETRTO / ISO 5751 convention: D = 25.4·rim + 2·W·AR/100)
 			widthMm: 130,
 			aspectPct: 60,
 			rimIn: 13,
+			construction: 'diagonal',
 			loadIndex: 53,
 			speedSymbol: 'P'
 		});
-		expect(t.parseTyre('120/70R12')).toEqual({ widthMm: 120, aspectPct: 70, rimIn: 12 });
+		expect(t.parseTyre('120/70R12')).toEqual({
+			widthMm: 120,
+			aspectPct: 70,
+			rimIn: 12,
+			construction: 'radial'
+		});
 		const inch = t.parseTyre('3.50-10');
 		expect(inch).toMatchObject({ aspectPct: 100, rimIn: 10, approximate: true });
 		expect(inch.widthMm).toBeCloseTo(3.5 * 25.4, 12);
