@@ -1,5 +1,5 @@
 // Main-jet corrections for a change of air.
-import { airAt, ISA_SEA_LEVEL_DENSITY, type AirConditions } from './air';
+import { airAt, type AirConditions } from './air';
 import { between, positive } from './check';
 
 /** How a jet series is numbered: by orifice diameter (e.g. hundredths of a mm) or by flow. */

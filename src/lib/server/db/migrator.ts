@@ -18,6 +18,8 @@ import * as m014 from './migrations/2026.12.02T23.40.00.idempotency-keys';
 import * as m015 from './migrations/2026.12.03T02.30.00.search-words';
 import * as m016 from './migrations/2026.12.03T06.00.00.stat-summaries';
 import * as m017 from './migrations/2026.12.03T08.00.00.rate-limits';
+import * as m018 from './migrations/2026.12.03T12.00.00.sea-level-jet-dry-air';
+import * as m019 from './migrations/2026.12.03T12.30.00.riding-conditions';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -39,7 +41,9 @@ const MIGRATIONS = [
 	{ name: '2026.12.02T23.40.00.idempotency-keys', ...m014 },
 	{ name: '2026.12.03T02.30.00.search-words', ...m015 },
 	{ name: '2026.12.03T06.00.00.stat-summaries', ...m016 },
-	{ name: '2026.12.03T08.00.00.rate-limits', ...m017 }
+	{ name: '2026.12.03T08.00.00.rate-limits', ...m017 },
+	{ name: '2026.12.03T12.00.00.sea-level-jet-dry-air', ...m018 },
+	{ name: '2026.12.03T12.30.00.riding-conditions', ...m019 }
 ];
 
 export function migrator() {

@@ -8,6 +8,7 @@ import { EmailToken } from './email-token';
 import { Flag, LogEntry, Report, ReviewCase } from './moderation';
 import { Part } from './part';
 import { Photo } from './photo';
+import { RidingConditions } from './riding-conditions';
 import { Run } from './run';
 import { Setup } from './setup';
 import { BuildTransfer, Shop, ShopLink, ShopMessage, ShopStaff } from './shop';
@@ -30,6 +31,7 @@ export {
 	EmailToken,
 	Part,
 	Photo,
+	RidingConditions,
 	Run,
 	Session,
 	Setup,
@@ -62,6 +64,7 @@ export function models() {
 		ShopLink.setup(sequelize);
 		BuildTransfer.setup(sequelize);
 		ShopMessage.setup(sequelize);
+		RidingConditions.setup(sequelize);
 		ShopLink.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
 		ShopMessage.belongsTo(User, { foreignKey: 'senderId', as: 'sender' });
 		Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
@@ -94,6 +97,7 @@ export function models() {
 		ShopStaff,
 		ShopLink,
 		BuildTransfer,
-		ShopMessage
+		ShopMessage,
+		RidingConditions
 	};
 }
