@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import { hydrated, makeUser, open, signInWithPassword } from './support';
 import { FORMS } from '../../src/lib/slide-rule/form-defs';
 import { toInput } from '../../src/lib/slide-rule/forms';
 import type { CalcResult, CalculatorName, Units } from '../../src/lib/slide-rule';
@@ -69,10 +70,58 @@ const cases: {
 	{
 		name: 'retune',
 		fill: {
-			metric: { 'Main jet that runs right there': '100', 'Target: Elevation': '1800' },
-			imperial: { 'Tuned at: Elevation': '300', 'Target: Elevation': '7000' }
+			metric: { 'Main jet that runs right there': '100', 'Ridden at: Elevation': '1800' },
+			imperial: { 'Jetted at: Elevation': '300', 'Ridden at: Elevation': '7000' }
 		},
 		expectKey: 'physicsJet'
+	},
+	{
+		name: 'pipe',
+		fill: {
+			metric: { 'Exhaust duration': '190', 'Engine speed the pipe should work at': '10000' },
+			imperial: { 'Exhaust gas temperature in the pipe': '950' }
+		},
+		expectKey: 'tunedLength'
+	},
+	{
+		name: 'time-area',
+		fill: {
+			metric: { 'Exhaust port width (chord)': '33', 'Engine speed of peak power': '10500' },
+			imperial: { 'Exhaust port width (chord)': '1.3' }
+		},
+		expectKey: 'exhaustSta'
+	},
+	{
+		name: 'carb',
+		fill: {
+			metric: { Displacement: '70', 'Engine speed of peak power': '10500' },
+			imperial: { 'Constant K': '0.7' }
+		},
+		expectKey: 'bore'
+	},
+	{
+		name: 'dial-gauge',
+		fill: {
+			metric: { Stroke: '40', Timing: '18' },
+			imperial: { 'Con-rod length (centres)': '3.5', Timing: '20' }
+		},
+		expectKey: 'drop'
+	},
+	{
+		name: 'premix',
+		fill: {
+			metric: { Fuel: '4', 'Ratio, fuel to oil': '32' },
+			imperial: { Fuel: '2' }
+		},
+		expectKey: 'oil'
+	},
+	{
+		name: 'belt',
+		fill: {
+			metric: { 'Belt pitch diameter on the variator (drive)': '62', 'Centre distance': '255' },
+			imperial: { 'Belt pitch diameter on the clutch pulley (driven)': '4.4' }
+		},
+		expectKey: 'ratio'
 	}
 ];
 
@@ -81,7 +130,7 @@ for (const c of cases) {
 		test(`Slide rule ${c.name} (${units}): the page shows what the API computes`, async ({
 			page
 		}) => {
-			await page.goto(`/slide-rule/${c.name}`);
+			await open(page, `/slide-rule/${c.name}`);
 			if (units === 'imperial') await page.getByRole('radio', { name: 'Imperial' }).click();
 			const before = (await shown(page))[c.expectKey];
 			for (const [label, value] of Object.entries(c.fill[units])) {
@@ -144,10 +193,29 @@ test('the API refuses bad input with named issues', async ({ request }) => {
 	).toBe(400);
 });
 
+test('the retune for jet 85, step 2, sea level → 1,500 m says 81 and "2 steps leaner"', async ({
+	page
+}) => {
+	await open(page, '/slide-rule/retune');
+	await page.getByLabel('Main jet that runs right there').fill('85');
+	await page.getByLabel('Step between jet sizes').fill('2');
+	for (const [side, elevation] of [
+		['Jetted at', '0'],
+		['Ridden at', '1500']
+	]) {
+		await page.getByLabel(`${side}: Elevation`).fill(elevation);
+		await page.getByLabel(`${side}: Air temperature`).fill('15');
+		await page.getByLabel(`${side}: Relative humidity`).fill('0');
+	}
+	await expect(page.locator('td[data-key="physicsJet"]')).toHaveText('81');
+	await expect(page.locator('td[data-key="physicsSteps"]')).toHaveText('\u22122');
+	await expect(page.getByText('Physics: 2 steps leaner, to 81.')).toBeVisible();
+	await matchesApi(page, 'retune');
+});
+
 test('the retune sheet is shareable and prints on one page', async ({ page, browser }) => {
-	await page.goto('/slide-rule/retune');
-	await page.getByRole('button', { name: 'winter' }).click();
-	await expect(page.getByLabel('Target: Air temperature')).toHaveValue('2');
+	await open(page, '/slide-rule/retune');
+	await page.getByLabel('Ridden at: Air temperature').fill('2');
 	const { onPage } = await matchesApi(page, 'retune');
 
 	const other = await browser.newPage();
@@ -157,8 +225,54 @@ test('the retune sheet is shareable and prints on one page', async ({ page, brow
 
 	await page.emulateMedia({ media: 'print' });
 	await expect(page.getByRole('form', { name: 'Inputs' })).toBeHidden();
-	await expect(page.getByText('Will run at')).toBeVisible();
+	await expect(page.getByText('Ridden at', { exact: true })).toBeVisible();
 	await expect(page.getByRole('heading', { name: 'Before you ride or wrench' })).toBeVisible();
 	const pdf = (await page.pdf({ format: 'A4', printBackground: true })).toString('latin1');
 	expect(pdf.match(/\/Type\s*\/Page[^s]/g)?.length).toBe(1);
+});
+
+test('with JavaScript off a calculator works out on the server, units switch included', async ({
+	browser
+}) => {
+	const context = await browser.newContext({ javaScriptEnabled: false });
+	const page = await context.newPage();
+	await page.goto('/slide-rule/pipe');
+	await page.getByLabel('Exhaust duration').fill('190');
+	await page.getByLabel('Engine speed the pipe should work at').fill('10000');
+	await page.getByRole('button', { name: 'Work it out' }).click();
+	await expect(page).toHaveURL(/exhaustDuration=190/);
+	// 190° at 10,000 rpm with 518.16 m/s: 190 · 518.16 / 120,000 m = 820.4 mm (Jennings's formula).
+	await expect(page.locator('td[data-key="tunedLength"]')).toHaveText('820');
+	await matchesApi(page, 'pipe');
+	await page.getByRole('radio', { name: 'Imperial' }).click();
+	await expect(page.locator('td[data-key="tunedLength"]')).toHaveText('32.30');
+	await expect(page.getByLabel('Exhaust duration')).toHaveValue('190');
+	await context.close();
+});
+
+test('a member saves the ridden-at place as a card and fills a retune from it', async ({
+	page
+}) => {
+	const me = await makeUser({ password: 'Card-holder-2026' });
+	await signInWithPassword(page, me.email, 'Card-holder-2026', '/slide-rule/retune');
+	await page.waitForURL(/\/slide-rule\/retune/);
+	await open(page, '/slide-rule/retune');
+	await page.getByLabel('Ridden at: Elevation').fill('950');
+	await page.getByLabel('Ridden at: Air temperature').fill('28');
+	await page.getByLabel('Save where it will be ridden as a card named').fill('Hill track, summer');
+	await page.getByRole('button', { name: 'Save card' }).last().click();
+	await expect(page.getByText('Saved the card “Hill track, summer”.')).toBeVisible();
+	await hydrated(page);
+	await expect(page.getByLabel('Ridden at: Elevation')).toHaveValue('950');
+	await page.getByLabel('Ridden at: Elevation').fill('10');
+	await page
+		.getByLabel('Fill where it will be ridden from')
+		.selectOption({ label: 'Hill track, summer' });
+	await expect(page.getByLabel('Ridden at: Elevation')).toHaveValue('950');
+	await expect(page.getByLabel('Ridden at: Air temperature')).toHaveValue('28');
+	await matchesApi(page, 'retune');
+	const list = await page.request.get('/api/riding-conditions');
+	expect((await list.json()).cards.map((c: { name: string }) => c.name)).toEqual([
+		'Hill track, summer'
+	]);
 });

@@ -91,6 +91,14 @@ const MATRIX: Record<string, Spec> = {
 	'POST /api/reports': { policy: 'member', ok: 422 },
 	'POST /api/review/notes': { policy: 'moderator', ok: 422 },
 	'POST /api/slide-rule/[name]': { policy: 'public', ok: 422 },
+	'POST /api/riding-conditions': { policy: 'member', ok: 422 },
+	'DELETE /api/riding-conditions/[cardId]': { policy: 'author', ok: 204 },
+	'/slide-rule/retune ?/saveCard': { policy: 'member', ok: 400 },
+	'/slide-rule/retune ?/deleteCard': {
+		policy: 'author',
+		ok: 303,
+		with: (f) => ({ cardId: String(f.cardId) })
+	},
 
 	'/builds/[id] ?/comment': { policy: 'member', ok: 400 },
 	'/builds/[id] ?/editComment': {
@@ -235,6 +243,7 @@ type Fixture = {
 	commentId: number;
 	linkId: number;
 	shownLinkId: number;
+	cardId: number;
 };
 
 let people: Record<Exclude<Who, 'anonymous'>, CurrentUser>;
@@ -309,7 +318,18 @@ async function fixture(): Promise<Fixture> {
 		photoId: photo.id,
 		commentId: comment.id,
 		linkId: (await link('requested')).id,
-		shownLinkId: (await link('approved')).id
+		shownLinkId: (await link('approved')).id,
+		cardId: (
+			await models().RidingConditions.create({
+				userId: people.author.id,
+				name: `Matrix place ${build.id}`,
+				elevationM: 100,
+				tempC: 20,
+				humidityPct: 50,
+				pressureKpa: null,
+				pressureKind: 'sea-level'
+			})
+		).id
 	};
 }
 
@@ -321,6 +341,7 @@ function paramsFor(route: string, f: Fixture): Record<string, string> {
 		partId: String(f.partId),
 		photoId: String(f.photoId),
 		commentId: String(f.commentId),
+		cardId: String(f.cardId),
 		name: 'gearing',
 		type: 'build',
 		token: 'not-a-real-token'

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import * as t from '../tuning';
-import { FieldError, fmt, on, row, within, type CalcResult } from './types';
+import { FieldError, fmt, on, row, within, type CalcResult, type ResultRow } from './types';
 
 /** Place and weather, shared with the retune calculator. Ranges are checked in the reader's units. */
 export const placeShape = {
@@ -90,31 +90,39 @@ export function conditions(p: Place, imperial: boolean, prefix = ''): t.AirCondi
 	return c;
 }
 
-/** The rows that describe one place's air, in the reader's units. */
-export function airRows(air: t.Air, imp: boolean, key = '', label = ''): ReturnType<typeof row>[] {
+/**
+ * The rows that describe one place's air, in the reader's units. With `key`, they are one of the
+ * retune's two places: the dry-air density is its answer, the rest working (off the print).
+ */
+export function airRows(air: t.Air, imp: boolean, key = '', label = ''): ResultRow[] {
 	const k = (s: string) => (key ? key + s[0].toUpperCase() + s.slice(1) : s);
 	const l = (s: string) => (label ? `${s}, ${label}` : s);
+	const detail = (r: ResultRow): ResultRow => (key ? { ...r, detail: true } : r);
 	return [
-		imp
-			? row(
-					k('pressure'),
-					l('Pressure at the place'),
-					t.kpaToInHg(air.pressurePa / 1000),
-					'inHg',
-					2
-				)
-			: row(k('pressure'), l('Pressure at the place'), air.pressurePa / 100, 'hPa', 1),
-		imp
-			? row(
-					k('vapour'),
-					l('Water vapour pressure'),
-					t.kpaToInHg(air.vapourPressurePa / 1000),
-					'inHg',
-					3
-				)
-			: row(k('vapour'), l('Water vapour pressure'), air.vapourPressurePa / 100, 'hPa', 1),
+		detail(
+			imp
+				? row(
+						k('pressure'),
+						l('Pressure at the place'),
+						t.kpaToInHg(air.pressurePa / 1000),
+						'inHg',
+						2
+					)
+				: row(k('pressure'), l('Pressure at the place'), air.pressurePa / 100, 'hPa', 1)
+		),
+		detail(
+			imp
+				? row(
+						k('vapour'),
+						l('Water vapour pressure'),
+						t.kpaToInHg(air.vapourPressurePa / 1000),
+						'inHg',
+						3
+					)
+				: row(k('vapour'), l('Water vapour pressure'), air.vapourPressurePa / 100, 'hPa', 1)
+		),
 		row(k('dryDensity'), l('Dry-air density (what burns)'), air.dryDensityKgM3, 'kg/m³', 4),
-		row(k('density'), l('Air density, dry air and vapour'), air.densityKgM3, 'kg/m³', 4)
+		detail(row(k('density'), l('Air density, dry air and vapour'), air.densityKgM3, 'kg/m³', 4))
 	];
 }
 

@@ -49,6 +49,8 @@ export function computeRetune(i: RetuneInput): CalcResult {
 		t.ruleOfThumbJet(i.jet, from.elevationM, to.elevationM, i.step)
 	);
 	const p = t.jetOnLadder(i.jet, physics, i.step);
+	// Real sizes print as the rider writes their own: as many decimals as the jet or the step has.
+	const sizeDecimals = Math.max(decimalsOf(i.jet), decimalsOf(i.step));
 	const r = t.jetOnLadder(i.jet, rule, i.step);
 	const rows = [
 		...airRows(a, imp, 'from', 'jetted'),
@@ -61,10 +63,10 @@ export function computeRetune(i: RetuneInput): CalcResult {
 			1
 		),
 		row('physics', 'Main jet by the air physics (exact)', physics, '', 2),
-		row('physicsJet', 'Jet to fit (physics)', p.size, '', 2),
+		row('physicsJet', 'Jet to fit (physics)', p.size, '', sizeDecimals),
 		changeRow('physicsSteps', 'Steps from your jet (physics)', p.steps, 'steps', 0),
 		row('rule', 'Main jet by the 1,000 ft rule of thumb', rule, '', 2),
-		row('ruleJet', 'Jet to fit (rule of thumb)', r.size, '', 2),
+		row('ruleJet', 'Jet to fit (rule of thumb)', r.size, '', sizeDecimals),
 		changeRow('ruleSteps', 'Steps from your jet (rule of thumb)', r.steps, 'steps', 0)
 	];
 	const notes = [
@@ -78,6 +80,11 @@ export function computeRetune(i: RetuneInput): CalcResult {
 	});
 	return { rows, warnings, notes };
 }
+
+const decimalsOf = (x: number) => {
+	const s = String(Number(x.toPrecision(12)));
+	return s.includes('.') ? Math.min(3, s.split('.')[1].length) : 0;
+};
 
 /** How far the rule moves against the physics, for the case on the sheet. */
 function ruleComparison(jet: number, physics: number, rule: number, numbering: string): string {

@@ -12,6 +12,8 @@ export type ResultRow = {
 	note?: string;
 	/** A change: shown with its sign (+ or −) even when positive. */
 	signed?: boolean;
+	/** Working, not the answer: left off the printed sheet. */
+	detail?: boolean;
 };
 
 /** A row's value as printed: fixed decimals, a real minus sign, and a plus on a positive change. */
