@@ -276,3 +276,22 @@ test('a member saves the ridden-at place as a card and fills a retune from it', 
 		'Hill track, summer'
 	]);
 });
+
+test('on a phone the answer stays in sight while typing, far above the results', async ({
+	browser
+}) => {
+	const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+	const page = await context.newPage();
+	await open(page, '/slide-rule/gearing');
+	const tyre = page.getByLabel(/Rear tyre size/);
+	await tyre.scrollIntoViewIfNeeded();
+	await tyre.fill('130/60-13 53P');
+	const bar = page.getByTestId('summary-bar');
+	await expect(bar).toBeInViewport();
+	await expect(bar).toContainText('Gearing-limited speed at peak rpm');
+	// The bar shows what the table shows, which is off the screen below the form.
+	const speed = (await page.locator('td[data-key="topSpeed"]').innerText()).trim();
+	await expect(bar).toContainText(speed);
+	await expect(page.locator('td[data-key="topSpeed"]')).not.toBeInViewport();
+	await context.close();
+});
