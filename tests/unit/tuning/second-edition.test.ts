@@ -397,3 +397,48 @@ describe('expansion chamber, carburettor, premix, belt', () => {
 		expect(() => t.cvtRatio(0, 118)).toThrow(/^drivePitchDiaMm/);
 	});
 });
+
+describe('the new functions refuse bad input, naming the parameter', () => {
+	it.each([
+		[
+			() =>
+				t.retargetJetForAir(
+					0,
+					{ elevationM: 0, tempC: 15, relativeHumidity: 0 },
+					{ elevationM: 0, tempC: 15, relativeHumidity: 0 }
+				),
+			/^jetSize/
+		],
+		[() => t.tunedLengthMm(0, 9000), /^exhaustDurationDeg/],
+		[() => t.tunedLengthMm(190, -1), /^rpm/],
+		[() => t.crankDegForDropMm(-1, 40, 85), /^dropMm/],
+		[() => t.premixOilMl(-1, 50), /^fuelLitres/],
+		[() => t.premixOilMl(5, 2), /^ratio/],
+		[
+			() => t.premixTopUp({ tankLitres: NaN, currentRatio: 50, addLitres: 1, targetRatio: 50 }),
+			/^tankLitres/
+		],
+		[() => t.beltPitchLengthMm(58, NaN, 268), /^d2Mm/],
+		[() => t.cvtRatio(58, -1), /^drivenPitchDiaMm/],
+		[() => t.jetOnLadder(85, 81, 0), /^step/]
+	])('%#', (fn, name) => {
+		expect(fn).toThrow(RangeError);
+		expect(fn).toThrow(name);
+	});
+	it('a premix target that needs fuel, not oil, says how much in the reader’s units', () => {
+		const o = runCalculator('premix', {
+			units: 'imperial',
+			fuel: 1,
+			ratio: 50,
+			tank: 1,
+			currentRatio: 25,
+			add: 0.1,
+			targetRatio: 50
+		});
+		expect(o.ok).toBe(false);
+		if (!o.ok) {
+			expect(o.issues[0].path).toBe('targetRatio');
+			expect(o.issues[0].message).toMatch(/US gal more fuel\.$/);
+		}
+	});
+});
