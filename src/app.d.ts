@@ -5,6 +5,8 @@ declare global {
 		interface Locals {
 			/** The signed-in member, loaded fresh from the database on every request. */
 			user: CurrentUser | null;
+			/** Markup put into the page's HTML after rendering (web/html-slots.ts), kept out of its data. */
+			htmlSlots?: Record<string, string>;
 		}
 		interface Error {
 			message: string;

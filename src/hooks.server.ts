@@ -12,6 +12,7 @@ import { closeDb, warmUp } from '$lib/server/db/connection';
 import { watchReplica } from '$lib/server/db/replica-watch';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/web/origin-check';
+import { htmlSlots } from '$lib/server/web/html-slots';
 import { publicCache } from '$lib/server/web/public-cache';
 import { changesReadPrimary, replicaReads } from '$lib/server/web/replica-reads';
 import { withSecurityHeaders } from '$lib/server/web/security-headers';
@@ -39,7 +40,8 @@ export const handle = sequence(
 	authHandle,
 	currentUser,
 	changesReadPrimary,
-	publicCache
+	publicCache,
+	htmlSlots
 );
 
 export const handleError: HandleServerError = ({ error, event, status }) => {

@@ -168,6 +168,35 @@ test.describe('filters without JavaScript', () => {
 		await expect(page).toHaveURL(/pipe=expansion-chamber/);
 		await expect(page.locator('.speed-map-chart figure')).toContainText('Elevation of the run');
 	});
+
+	test('the speed map’s table is on a page of its own', async ({ page }) => {
+		await page.goto('/speed-map?x=displacement&pipe=expansion-chamber');
+		await page.getByText('The same data as a table').click();
+		await page.getByRole('link', { name: 'The table on a page of its own' }).click();
+		await expect(page).toHaveURL(/\/speed-map\/table\?x=displacement&pipe=expansion-chamber/);
+		const exhausts = await page.getByRole('table').locator('tbody td:nth-child(3)').allInnerTexts();
+		expect(exhausts.length).toBeGreaterThan(0);
+		expect(new Set(exhausts)).toEqual(new Set(['expansion chamber']));
+	});
+});
+
+test('the speed map page carries its drawing once, and its table’s rows only when opened', async ({
+	page
+}) => {
+	const html = await (await page.request.get('/speed-map?x=displacement')).text();
+	// One drawing in the HTML, and the page's data without the marks it draws.
+	expect(html.match(/aria-label="dot"/g)?.length).toBe(1);
+	expect(html).toContain('marksLeftOut');
+	expect(html).not.toContain('<tbody><tr>');
+	await open(page, '/speed-map?x=displacement');
+	await page.getByText('The same data as a table').click();
+	const rows = page.getByRole('table').locator('tbody tr');
+	await expect(rows.first()).toBeVisible();
+	expect(await rows.count()).toBe(
+		Number((await page.getByTestId('map-count').innerText()).replace(/,/g, ''))
+	);
+	// The chart the server drew is still there after waking, not drawn again.
+	await expect(page.locator('.speed-map-chart svg:has([aria-label="dot"])')).toHaveCount(1);
 });
 
 test('side by side picks from cards, a build page and the table, kept across pages, and says when it is full', async ({
