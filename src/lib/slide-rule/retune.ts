@@ -52,9 +52,14 @@ export function computeRetune(i: RetuneInput): CalcResult {
 	// Real sizes print as the rider writes their own: as many decimals as the jet or the step has.
 	const sizeDecimals = Math.max(decimalsOf(i.jet), decimalsOf(i.step));
 	const r = t.jetOnLadder(i.jet, rule, i.step);
+	// The answer first (what a shop prints), then the air it comes from.
 	const rows = [
-		...airRows(a, imp, 'from', 'jetted'),
-		...airRows(b, imp, 'to', 'ridden'),
+		row('physicsJet', 'Jet to fit (physics)', p.size, '', sizeDecimals),
+		changeRow('physicsSteps', 'Steps from your jet (physics)', p.steps, 'steps', 0),
+		row('physics', 'Main jet by the air physics (exact)', physics, '', 2),
+		row('ruleJet', 'Jet to fit (rule of thumb)', r.size, '', sizeDecimals),
+		changeRow('ruleSteps', 'Steps from your jet (rule of thumb)', r.steps, 'steps', 0),
+		row('rule', 'Main jet by the 1,000 ft rule of thumb', rule, '', 2),
 		changeRow(
 			'dryDensityChange',
 			'Dry-air density change',
@@ -62,12 +67,8 @@ export function computeRetune(i: RetuneInput): CalcResult {
 			'%',
 			1
 		),
-		row('physics', 'Main jet by the air physics (exact)', physics, '', 2),
-		row('physicsJet', 'Jet to fit (physics)', p.size, '', sizeDecimals),
-		changeRow('physicsSteps', 'Steps from your jet (physics)', p.steps, 'steps', 0),
-		row('rule', 'Main jet by the 1,000 ft rule of thumb', rule, '', 2),
-		row('ruleJet', 'Jet to fit (rule of thumb)', r.size, '', sizeDecimals),
-		changeRow('ruleSteps', 'Steps from your jet (rule of thumb)', r.steps, 'steps', 0)
+		...airRows(a, imp, 'from', 'jetted'),
+		...airRows(b, imp, 'to', 'ridden')
 	];
 	const notes = [
 		`Physics: ${saySteps(p.steps)}, to ${fmt(p.size)}. Rule of thumb: ${saySteps(r.steps)}, to ${fmt(r.size)}.`,
