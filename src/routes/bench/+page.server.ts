@@ -25,7 +25,8 @@ export const load: PageServerLoad = async (event) => {
 			partsTotalMinor: b.partsTotalMinor,
 			currency: b.currency,
 			setupCount: b.setupCount,
-			runCount: b.runCount
+			runCount: b.runCount,
+			lastSetupId: (b.get('lastSetupId') as number | null) ?? null
 		}))
 	};
 };

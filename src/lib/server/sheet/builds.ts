@@ -1,3 +1,4 @@
+import { literal } from 'sequelize';
 import { models, type Build } from '../db/models';
 
 export type BuildPatch = Partial<
@@ -43,9 +44,20 @@ export async function destroy(id: number) {
 }
 
 /** A member's own builds: drafts first, then the rest by last change. */
+/** The member's own builds, each with its latest setup (where "Add a run" goes). */
 export async function listBench(ownerId: string) {
 	return models().Build.findAll({
 		where: { ownerId },
+		attributes: {
+			include: [
+				[
+					literal(
+						'(SELECT s.id FROM setups s WHERE s.build_id = `Build`.`id` ORDER BY s.position DESC LIMIT 1)'
+					),
+					'lastSetupId'
+				]
+			]
+		},
 		order: [
 			['publication', 'ASC'],
 			['updatedAt', 'DESC']

@@ -23,6 +23,17 @@ export async function listForBuild(buildId: number) {
 	});
 }
 
+/** The build's most recent run (by its date, then the order logged), or null. */
+export async function latestForBuild(buildId: number) {
+	return models().Run.findOne({
+		where: { buildId },
+		order: [
+			['runOn', 'DESC'],
+			['id', 'DESC']
+		]
+	});
+}
+
 export async function read(buildId: number, id: number) {
 	return Number.isInteger(id) ? models().Run.findOne({ where: { id, buildId } }) : null;
 }

@@ -94,6 +94,34 @@ export function runFromColumns(r: Run): Stored {
 	return out;
 }
 
+/**
+ * What a new run starts from: the build's latest run's place, air, measuring method and
+ * rider-plus-kit mass — the things that stay the same from one run to the next at the track —
+ * never its speed or date. Empty for a build with no run yet.
+ */
+export const CARRIED_RUN_FIELDS = [
+	'venue',
+	'elevation',
+	'temp',
+	'humidity',
+	'pressure',
+	'pressureKind',
+	'method',
+	'riderMass'
+] as const;
+
+export async function carriedRunValues(
+	buildId: number
+): Promise<{ values: Stored; from: { runOn: string } | null }> {
+	const last = await runs.latestForBuild(buildId);
+	if (!last) return { values: {}, from: null };
+	const stored = runFromColumns(last);
+	const values: Stored = {};
+	for (const k of CARRIED_RUN_FIELDS)
+		if (stored[k] !== null && stored[k] !== undefined) values[k] = stored[k];
+	return { values, from: { runOn: String(last.runOn).slice(0, 10) } };
+}
+
 export async function saveRun(
 	buildId: number,
 	setupId: number,

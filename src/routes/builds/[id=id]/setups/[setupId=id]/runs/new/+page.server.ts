@@ -1,7 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { editSetup } from '$lib/server/sheet/access';
 import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
-import { saveRun } from '$lib/server/sheet/service';
+import { carriedRunValues, saveRun } from '$lib/server/sheet/service';
 import { unitsFor } from '$lib/server/sheet/units';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { Actions, PageServerLoad } from './$types';
@@ -10,19 +10,21 @@ export const load: PageServerLoad = async (event) => {
 	const { build, setup } = await editSetup(event);
 	const units = unitsFor(event);
 	const today = new Date().toISOString().slice(0, 10);
+	const carried = await carriedRunValues(build.id);
 	const form = await sheetForm(
 		'run',
 		RUN_FIELDS,
 		units,
-		{
-			runOn: today,
-			humidity: 50
-		},
+		{ humidity: 50, ...carried.values, runOn: today },
 		'complete'
 	);
+	// The speed starts empty, never 0: it is the one thing that is new about every run.
+	delete (form.data as Record<string, unknown>).speed;
 	return {
 		units,
 		form,
+		carriedFrom: carried.from,
+		carriedFields: Object.keys(carried.values),
 		build: { id: build.id, title: build.title },
 		setup: { id: setup.id, position: setup.position, changeNote: setup.changeNote }
 	};

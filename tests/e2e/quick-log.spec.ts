@@ -1,0 +1,55 @@
+import { expect, test } from '@playwright/test';
+import { saveRun } from '../../src/lib/server/sheet/service';
+import { fixtureRun } from '../support/sheet-fixtures';
+import { publishedBuild } from '../support/moderation-fixtures';
+import { hydrated, makeUser, open, signInWithPassword } from './support';
+
+// At the track, on a phone: the next run in two taps and the speed, place and air carried over.
+test.use({ viewport: { width: 390, height: 844 } });
+
+test('a member logs a run from the build page with place and air carried over', async ({
+	page
+}) => {
+	const me = await makeUser({ password: 'Track-day-2026' });
+	const { build, setupId } = await publishedBuild(me.id, 'Quick log fixture');
+	// The latest run (by date) is the one carried over: 640 m, 24 °C, radar.
+	await saveRun(build.id, setupId, fixtureRun(66, { elevation: 640, temp: 24, method: 'radar' }));
+	const later = {
+		...fixtureRun(67, { elevation: 640, temp: 24, method: 'radar' }),
+		runOn: '2026-06-02'
+	};
+	await saveRun(build.id, setupId, later);
+
+	await signInWithPassword(page, me.email, 'Track-day-2026', `/builds/${build.id}`);
+	await page.waitForURL(new RegExp(`/builds/${build.id}$`));
+	await hydrated(page);
+	await page.getByRole('link', { name: 'Add a run' }).click();
+	await expect(page.getByTestId('carried-over')).toContainText('2026-06-02');
+	await hydrated(page);
+	await expect(page.getByLabel(/^Site elevation/)).toHaveValue('640');
+	await expect(page.getByLabel(/^Air temperature/)).toHaveValue('24');
+	await expect(page.getByLabel(/^Measured with/)).toHaveValue('radar');
+	await expect(page.getByLabel(/^Top speed/)).toHaveValue('');
+	await page.getByLabel(/^Top speed/).fill('68.5');
+	await page.getByRole('button', { name: 'Save run' }).click();
+	await page.waitForURL(new RegExp(`/builds/${build.id}/edit`));
+
+	const sheet = await (await page.request.get(`/api/builds/${build.id}`)).json();
+	const speeds = JSON.stringify(sheet);
+	expect(speeds).toContain('68.5');
+});
+
+test('the bench offers "Add a run" and "Next setup" on each card', async ({ page }) => {
+	const me = await makeUser({ password: 'Bench-card-2026' });
+	const { build, setupId } = await publishedBuild(me.id, 'Bench card fixture');
+	await signInWithPassword(page, me.email, 'Bench-card-2026', '/bench');
+	await page.waitForURL(/\/bench$/);
+	await open(page, '/bench');
+	await expect(page.getByRole('link', { name: 'Add a run to Bench card fixture' })).toHaveAttribute(
+		'href',
+		`/builds/${build.id}/setups/${setupId}/runs/new`
+	);
+	await expect(
+		page.getByRole('link', { name: 'Next setup of Bench card fixture' })
+	).toHaveAttribute('href', `/builds/${build.id}/setups/new`);
+});
