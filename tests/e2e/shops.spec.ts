@@ -111,7 +111,7 @@ test('a shop fills in a build for a customer and hands it over; the customer acc
 		`built by ${name}`
 	);
 	await c.goto('/bench');
-	await expect(c.getByRole('link', { name: title })).toBeVisible();
+	await expect(c.getByRole('link', { name: title, exact: true })).toBeVisible();
 
 	// The shop no longer has it (reload: the desk is already open at this address).
 	await shop.page.reload();
