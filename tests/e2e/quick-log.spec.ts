@@ -53,3 +53,26 @@ test('the bench offers "Add a run" and "Next setup" on each card', async ({ page
 		page.getByRole('link', { name: 'Next setup of Bench card fixture' })
 	).toHaveAttribute('href', `/builds/${build.id}/setups/new`);
 });
+
+test('a save that meets no signal says so, keeps what was typed and can be pressed again', async ({
+	page,
+	context
+}) => {
+	const me = await makeUser({ password: 'No-signal-2026' });
+	const { build, setupId } = await publishedBuild(me.id, 'No signal fixture');
+	await signInWithPassword(page, me.email, 'No-signal-2026', `/builds/${build.id}`);
+	await page.waitForURL(new RegExp(`/builds/${build.id}$`));
+	await open(page, `/builds/${build.id}/setups/${setupId}/runs/new`);
+	await page.getByLabel(/^Top speed/).fill('71.2');
+	await context.setOffline(true);
+	await page.getByRole('button', { name: 'Save run' }).click();
+	await expect(page.getByTestId('not-sent')).toContainText('Not sent — your entries are kept');
+	await expect(page.getByRole('button', { name: 'Save run' })).toBeEnabled();
+	await expect(page.getByLabel(/^Top speed/)).toHaveValue('71.2');
+	await context.setOffline(false);
+	await page.getByRole('button', { name: 'Save run' }).click();
+	await page.waitForURL(new RegExp(`/builds/${build.id}/edit`));
+	expect(
+		JSON.stringify(await (await page.request.get(`/api/builds/${build.id}`)).json())
+	).toContain('71.2');
+});
