@@ -295,3 +295,24 @@ test('on a phone the answer stays in sight while typing, far above the results',
 	await expect(page.locator('td[data-key="topSpeed"]')).not.toBeInViewport();
 	await context.close();
 });
+
+test('without JavaScript a card is saved and then fills the retune with "Use it"', async ({
+	browser
+}) => {
+	const me = await makeUser({ password: 'No-script-card-2026' });
+	const context = await browser.newContext({ javaScriptEnabled: false });
+	const page = await context.newPage();
+	await signInWithPassword(page, me.email, 'No-script-card-2026', '/slide-rule/retune', false);
+	await page.waitForURL(/\/slide-rule\/retune/);
+	await page.getByLabel('Jetted at: Elevation').fill('1250');
+	await page.getByLabel('Save where it was jetted as a card named').fill('Home workshop');
+	await page.getByRole('button', { name: 'Save card' }).first().click();
+	await expect(page.getByText('Saved the card “Home workshop”.')).toBeVisible();
+	await page.getByLabel('Ridden at: Elevation').fill('5');
+	await page
+		.getByLabel('Fill where it will be ridden from')
+		.selectOption({ label: 'Home workshop' });
+	await page.getByRole('button', { name: 'Use it' }).last().click();
+	await expect(page.getByLabel('Ridden at: Elevation')).toHaveValue('1250');
+	await context.close();
+});

@@ -70,17 +70,7 @@ export function computeDialGauge(i: DialGaugeInput): CalcResult {
 				'Give the wheel reading where the port opens and where it closes.'
 			);
 		const duration = t.durationFromWheelDeg(i.opens, i.closes);
-		rows.push(
-			row(
-				'duration',
-				'Port duration',
-				duration,
-				'°',
-				1,
-				t.plausibilityNote('exhaustDurationDeg', duration, (x) => `${fmt(x)}°`) &&
-					t.plausibilityNote('transferDurationDeg', duration, (x) => `${fmt(x)}°`)
-			)
-		);
+		rows.push(row('duration', 'Port duration', duration, '°', 1));
 		const tdc = stops.every((s) => s !== undefined)
 			? t.tdcFromStopsDeg(i.stopFirst!, i.stopSecond!)
 			: 0;

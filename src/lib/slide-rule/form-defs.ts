@@ -1,4 +1,4 @@
-import type { FieldDef, FormValues } from './forms';
+import { convertTyped, dimOf, type FieldDef, type FormValues } from './forms';
 import type { Units } from './types';
 import type { CalculatorName } from './index';
 
@@ -589,68 +589,75 @@ export const DEFAULTS: Record<CalculatorName, Record<Units, FormValues>> = {
 			toPressureKind: 'sea-level'
 		}
 	},
-	pipe: {
-		metric: { exhaustDuration: '186', rpm: '9500', gasTemp: '' },
-		imperial: { exhaustDuration: '186', rpm: '9500', gasTemp: '' }
-	},
-	'time-area': {
-		metric: {
-			bore: '47',
-			stroke: '39.2',
-			rod: '85',
-			rpm: '9500',
-			exhaustWidth: '30',
-			exhaustMode: 'duration',
-			exhaust: '186',
-			transferWidth: '52',
-			transferMode: 'duration',
-			transfer: '126'
-		},
-		imperial: {
-			bore: '1.8504',
-			stroke: '1.5433',
-			rod: '3.3465',
-			rpm: '9500',
-			exhaustWidth: '1.1811',
-			exhaustMode: 'duration',
-			exhaust: '186',
-			transferWidth: '2.0472',
-			transferMode: 'duration',
-			transfer: '126'
-		}
-	},
-	carb: {
-		metric: { displacementCc: '68', peakRpm: '9500', k: '0.8' },
-		imperial: { displacementCc: '68', peakRpm: '9500', k: '0.8' }
-	},
-	'dial-gauge': {
-		metric: {
-			stroke: '39.2',
-			rod: '85',
-			mode: 'degrees',
-			value: '17',
-			stopFirst: '',
-			stopSecond: '',
-			opens: '',
-			closes: ''
-		},
-		imperial: {
-			stroke: '1.5433',
-			rod: '3.3465',
-			mode: 'degrees',
-			value: '17',
-			stopFirst: '',
-			stopSecond: '',
-			opens: '',
-			closes: ''
-		}
-	},
-	premix: {
-		metric: { fuel: '5', ratio: '50', tank: '', currentRatio: '', add: '', targetRatio: '' },
-		imperial: { fuel: '1.5', ratio: '50', tank: '', currentRatio: '', add: '', targetRatio: '' }
-	},
-	belt: {
-		metric: { drive: '58', driven: '118', centre: '268' },
-		imperial: { drive: '2.2835', driven: '4.6457', centre: '10.5512' }
-	}
+	// The bench calculators' imperial sheets are their metric ones converted field by field.
+	pipe: bothSystems('pipe', { exhaustDuration: '186', rpm: '9500', gasTemp: '' }),
+	'time-area': bothSystems('time-area', {
+		bore: '47',
+		stroke: '39.2',
+		rod: '85',
+		rpm: '9500',
+		exhaustWidth: '30',
+		exhaustMode: 'duration',
+		exhaust: '186',
+		transferWidth: '52',
+		transferMode: 'duration',
+		transfer: '126'
+	}),
+	carb: bothSystems('carb', { displacementCc: '68', peakRpm: '9500', k: '0.8' }),
+	'dial-gauge': bothSystems('dial-gauge', {
+		stroke: '39.2',
+		rod: '85',
+		mode: 'degrees',
+		value: '17',
+		stopFirst: '',
+		stopSecond: '',
+		opens: '',
+		closes: ''
+	}),
+	premix: bothSystems('premix', {
+		fuel: '5',
+		ratio: '50',
+		tank: '',
+		currentRatio: '',
+		add: '',
+		targetRatio: ''
+	}),
+	belt: bothSystems('belt', { drive: '58', driven: '118', centre: '268' })
 };
+
+function bothSystems(name: CalculatorName, metric: FormValues): Record<Units, FormValues> {
+	const imperial = { ...metric };
+	for (const f of FORMS[name])
+		if (f.kind === 'number')
+			imperial[f.name] = convertTyped(metric[f.name] ?? '', dimOf(f, metric), 'imperial');
+	return { metric, imperial };
+}
+
+/**
+ * The sheet a link (or a form sent without JavaScript) describes: the defaults of its unit
+ * system, then each field the query carries, then `initial` over both. A sent form (one that
+ * carries `units`) with a checkbox missing means it was unticked. `switchTo` — the units buttons
+ * of a form sent without JavaScript — converts what was typed into the other system.
+ */
+export function sheetFromQuery(
+	name: CalculatorName,
+	q: URLSearchParams,
+	initial: FormValues = {}
+): { units: Units; values: FormValues } {
+	let units: Units = q.get('units') === 'imperial' ? 'imperial' : 'metric';
+	const fields = FORMS[name];
+	const values: FormValues = { ...DEFAULTS[name][units] };
+	for (const f of fields) {
+		if (q.has(f.name)) values[f.name] = q.get(f.name) ?? '';
+		else if (f.kind === 'checkbox' && q.has('units')) values[f.name] = 'false';
+	}
+	Object.assign(values, initial);
+	const to = q.get('switchTo');
+	if ((to === 'metric' || to === 'imperial') && to !== units) {
+		for (const f of fields)
+			if (f.kind === 'number')
+				values[f.name] = convertTyped(values[f.name] ?? '', dimOf(f, values), to);
+		units = to;
+	}
+	return { units, values };
+}

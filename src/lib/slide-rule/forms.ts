@@ -1,7 +1,5 @@
 // How each calculator's form looks: fields, units by system, and starting values.
 import * as t from '../tuning';
-import { DEFAULTS, FORMS } from './form-defs';
-import type { CalculatorName } from './index';
 import type { Units } from './types';
 
 /** What a number measures, so switching metric ↔ imperial converts what was typed. */
@@ -104,33 +102,4 @@ export function toInput(
 		else out[f.name] = raw;
 	}
 	return out;
-}
-
-/**
- * The sheet a link (or a form sent without JavaScript) describes: the defaults of its unit
- * system, then each field the query carries, then `initial` over both. A sent form (one that
- * carries `units`) with a checkbox missing means it was unticked. `switchTo` — the units buttons
- * of a form sent without JavaScript — converts what was typed into the other system.
- */
-export function sheetFromQuery(
-	name: CalculatorName,
-	q: URLSearchParams,
-	initial: FormValues = {}
-): { units: Units; values: FormValues } {
-	let units: Units = q.get('units') === 'imperial' ? 'imperial' : 'metric';
-	const fields = FORMS[name];
-	const values: FormValues = { ...DEFAULTS[name][units] };
-	for (const f of fields) {
-		if (q.has(f.name)) values[f.name] = q.get(f.name) ?? '';
-		else if (f.kind === 'checkbox' && q.has('units')) values[f.name] = 'false';
-	}
-	Object.assign(values, initial);
-	const to = q.get('switchTo');
-	if ((to === 'metric' || to === 'imperial') && to !== units) {
-		for (const f of fields)
-			if (f.kind === 'number')
-				values[f.name] = convertTyped(values[f.name] ?? '', dimOf(f, values), to);
-		units = to;
-	}
-	return { units, values };
 }

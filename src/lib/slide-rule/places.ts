@@ -36,3 +36,32 @@ export function placeFields(p: PlaceAir, units: 'metric' | 'imperial'): Record<s
 		pressureKind: p.pressureKind
 	};
 }
+
+export type Places = { cards: Card[]; runs: RunPlace[] };
+
+/** The place a "fill from" choice names (`card:3`, `run:12`), among the member's own. */
+export function chosenPlace(places: Places, choice: string | null): Card | RunPlace | undefined {
+	const [kind, id] = (choice ?? '').split(':');
+	if (kind === 'card') return places.cards.find((c) => c.id === Number(id));
+	if (kind === 'run') return places.runs.find((r) => r.id === Number(id));
+	return undefined;
+}
+
+/**
+ * The retune fields a place fills on one side ("fromElevation", …), in the reader's units; a run
+ * filling the jetted-at place brings the jet it ran too.
+ */
+export function placePatch(
+	side: 'from' | 'to',
+	p: Card | RunPlace,
+	units: 'metric' | 'imperial'
+): Record<string, string> {
+	const out: Record<string, string> = {};
+	for (const [k, v] of Object.entries(placeFields(p, units)))
+		out[side + k[0].toUpperCase() + k.slice(1)] = v;
+	if (side === 'from' && 'mainJet' in p && p.mainJet !== null) {
+		out.jet = String(p.mainJet);
+		out.numbering = p.jetNumbering;
+	}
+	return out;
+}

@@ -46,27 +46,17 @@ export function computePremix(i: PremixInput): CalcResult {
 			'To top up, give all four: what the tank holds, its ratio, the fuel you add and the ratio you want.'
 		);
 	if (given.length === TOP_UP.length) {
-		const tank = toL(i.tank!);
-		const add = toL(i.add!);
-		// A target leaner in oil than the tank already is needs more fuel, not oil: say how much, in
-		// the reader's units (the tank's oil at the target ratio, less the fuel there will be).
-		const oilThere = tank / (i.currentRatio! + 1);
-		const fuelThere = (tank * i.currentRatio!) / (i.currentRatio! + 1) + add;
-		if (oilThere * i.targetRatio! > fuelThere + 1e-12) {
-			const more = oilThere * i.targetRatio! - fuelThere;
+		const r = t.premixBalance({
+			tankLitres: toL(i.tank!),
+			currentRatio: i.currentRatio!,
+			addLitres: toL(i.add!),
+			targetRatio: i.targetRatio!
+		});
+		if (r.moreFuelLitres > 0)
 			throw new FieldError(
 				'targetRatio',
-				`The tank already holds more oil than ${fmt(i.targetRatio!)}:1 allows: add at least ${imp ? `${fmt(t.lToGal(more), 2)} US gal` : `${fmt(more, 2)} L`} more fuel.`
+				`The tank already holds more oil than ${fmt(i.targetRatio!)}:1 allows: add at least ${imp ? `${fmt(t.lToGal(r.moreFuelLitres), 2)} US gal` : `${fmt(r.moreFuelLitres, 2)} L`} more fuel.`
 			);
-		}
-		const r = on('targetRatio', () =>
-			t.premixTopUp({
-				tankLitres: tank,
-				currentRatio: i.currentRatio!,
-				addLitres: add,
-				targetRatio: i.targetRatio!
-			})
-		);
 		rows.push(oil('topUpOil', 'Oil to add with the top-up', r.oilMl));
 		notes.push(
 			'The tank’s mix counts as fuel and oil in its ratio; the oil to add brings all of it to the new ratio.'

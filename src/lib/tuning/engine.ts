@@ -49,11 +49,16 @@ export function pistonDropMm(crankDegFromTdc: number, strokeMm: number, rodMm: n
 export function portOpenDeg(portTopBelowTdcMm: number, strokeMm: number, rodMm: number): number {
 	checkRod(strokeMm, rodMm);
 	inside('portTopBelowTdcMm', portTopBelowTdcMm, 0, strokeMm);
+	return angleForDrop(portTopBelowTdcMm, strokeMm, rodMm);
+}
+
+/** The crank angle (0…180°) at which the crown is `drop` below TDC, checked arguments. */
+function angleForDrop(drop: number, strokeMm: number, rodMm: number): number {
 	const r = strokeMm / 2;
 	const l = rodMm;
-	const y = r + l - portTopBelowTdcMm;
+	const y = r + l - drop;
 	const c = (y * y + r * r - l * l) / (2 * y * r);
-	// With 0 < h < S, c lies in [−1, 1]; the clamp only absorbs floating-point noise at the ends.
+	// With 0 ≤ h ≤ S, c lies in [−1, 1]; the clamp only absorbs floating-point noise at the ends.
 	return deg(Math.acos(Math.min(1, Math.max(-1, c))));
 }
 
@@ -141,11 +146,7 @@ export function squishAdvice(boreMm: number, squishMm: number): SquishAdvice {
 export function crankDegForDropMm(dropMm: number, strokeMm: number, rodMm: number): number {
 	checkRod(strokeMm, rodMm);
 	between('dropMm', dropMm, 0, strokeMm);
-	const r = strokeMm / 2;
-	const l = rodMm;
-	const y = r + l - dropMm;
-	const c = (y * y + r * r - l * l) / (2 * y * r);
-	return deg(Math.acos(Math.min(1, Math.max(-1, c))));
+	return angleForDrop(dropMm, strokeMm, rodMm);
 }
 
 /**

@@ -214,11 +214,26 @@ describe('impossible inputs get a plausibility note next to the result (bug)', (
 		const b = ok('cylinder', { units: 'metric', bore: 470, stroke: 39.2, squish: 1 });
 		expect(noteOf(b, 'displacement')).toMatch(/bore this high is unusual/);
 	});
-	it('every range has its reason', () => {
+	it('every range has its reason, and its usual values lie inside it', () => {
 		for (const [k, r] of Object.entries(t.PLAUSIBLE)) {
-			expect(r.min, k).toBeLessThan(r.max);
-			expect(r.why.length, k).toBeGreaterThan(20);
+			expect(r.min, k).toBeLessThan(r.typical[0]);
+			expect(r.typical[0], k).toBeLessThan(r.typical[1]);
+			expect(r.typical[1], k).toBeLessThan(r.max);
+			expect(r.why.length, k).toBeGreaterThan(10);
+			// Numbers with a unit come through `show`, never in the words.
+			expect(r.why, k).not.toMatch(/\d\s*(mm|km\/h|°|rpm)\b/);
 		}
+	});
+	it('an imperial reader’s note is in inches and mph, not mm or km/h', () => {
+		const b = ok('cylinder', { units: 'imperial', bore: 18.5, stroke: 1.54 });
+		expect(noteOf(b, 'displacement')).toMatch(/bore this high is unusual/);
+		expect(noteOf(b, 'displacement')).toMatch(/ in\b/);
+		expect(noteOf(b, 'displacement')).not.toMatch(/mm/);
+		const g = ok('gearing', { ...gearing, units: 'imperial', topCvt: 0.2 });
+		expect(noteOf(g, 'topSpeed')).toMatch(/top CVT ratio this low/);
+		const fast = ok('gearing', { ...gearing, units: 'imperial', peakRpm: 16000, topCvt: 0.65 });
+		expect(noteOf(fast, 'topSpeed')).toMatch(/speed this high is unusual.*mph/);
+		expect(noteOf(fast, 'topSpeed')).not.toMatch(/km\/h/);
 	});
 });
 

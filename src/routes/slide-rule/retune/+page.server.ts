@@ -4,28 +4,16 @@ import { requireUser } from '$lib/server/guard';
 import { deleteCard, listCards, listRunPlaces, saveCard } from '$lib/server/riding/places';
 import { forPages } from '$lib/server/web/page-failure';
 import { FORMS } from '$lib/slide-rule/form-defs';
-import { placeFields, type Card, type RunPlace } from '$lib/slide-rule/places';
+import { chosenPlace, placePatch } from '$lib/slide-rule/places';
 import type { Actions, PageServerLoad } from './$types';
 
 type Side = 'from' | 'to';
-const prefixed = (side: Side, fields: Record<string, string>) =>
-	Object.fromEntries(
-		Object.entries(fields).map(([k, v]) => [side + k[0].toUpperCase() + k.slice(1), v])
-	);
 
-/** The place a "fill from" choice names (`card:3`, `run:12`), among the member's own. */
-function chosen(places: { cards: Card[]; runs: RunPlace[] }, choice: string | null) {
-	const [kind, id] = (choice ?? '').split(':');
-	if (kind === 'card') return places.cards.find((c) => c.id === Number(id));
-	if (kind === 'run') return places.runs.find((r) => r.id === Number(id));
-	return undefined;
-}
-
-/** The sheet's own fields from a sent form, to reopen it as it was. */
-const sheetOf = (data: FormData) => {
+/** The sheet's own fields (from a sent form or a kept address), to reopen it as it was. */
+const sheetOf = (from: { get(name: string): unknown }) => {
 	const q = new URLSearchParams();
 	for (const name of ['units', ...FORMS.retune.map((f) => f.name)]) {
-		const v = data.get(name);
+		const v = from.get(name);
 		if (typeof v === 'string') q.set(name, v);
 	}
 	return q;
@@ -40,13 +28,9 @@ export const load: PageServerLoad = async ({ locals, url }) => {
 	const prefill: Record<string, string> = {};
 	const side = url.searchParams.get('fill');
 	if (side === 'from' || side === 'to') {
-		const p = chosen(places, url.searchParams.get(`${side}Source`));
+		const p = chosenPlace(places, url.searchParams.get(`${side}Source`));
 		const units = url.searchParams.get('units') === 'imperial' ? 'imperial' : 'metric';
-		if (p) Object.assign(prefill, prefixed(side, placeFields(p, units)));
-		if (p && side === 'from' && 'mainJet' in p && p.mainJet !== null) {
-			prefill.jet = String(p.mainJet);
-			prefill.numbering = p.jetNumbering;
-		}
+		if (p) Object.assign(prefill, placePatch(side, p, units));
 	}
 	return { places, prefill, signedIn: !!me };
 };
@@ -88,12 +72,7 @@ export const actions: Actions = forPages({
 		const data = await event.request.formData();
 		await deleteCard(me, Number(data.get('cardId')));
 		// Back to the sheet as it was: only its own fields, re-encoded, on this page.
-		const was = new URLSearchParams(String(data.get('sheet') ?? '').replace(/^\?/, ''));
-		const q = new URLSearchParams();
-		for (const name of ['units', ...FORMS.retune.map((f) => f.name)]) {
-			const v = was.get(name);
-			if (v !== null) q.set(name, v);
-		}
+		const q = sheetOf(new URLSearchParams(String(data.get('sheet') ?? '').replace(/^\?/, '')));
 		redirect(303, `/slide-rule/retune?${q}`);
 	}
 });
