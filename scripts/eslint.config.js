@@ -25,7 +25,9 @@ export default ts.config(
 		files: ['**/*.ts', '**/*.svelte', '**/*.svelte.ts'],
 		languageOptions: {
 			parserOptions: {
-				projectService: { allowDefaultProject: [] },
+				// SvelteKit keeps the service worker out of the app's tsconfig (it runs with the
+				// WebWorker library, not the DOM's); it is linted on its own.
+				projectService: { allowDefaultProject: ['src/service-worker.ts'] },
 				tsconfigRootDir: path.resolve(import.meta.dirname, '..'),
 				extraFileExtensions: ['.svelte'],
 				parser: ts.parser,

@@ -31,10 +31,27 @@ export function keptSubmit(
 	};
 }
 
-/** The same for a superform: its options for the draft and the words. */
-export function keptSuperForm(draft: FormDraft, show: (words: string | null) => void) {
+/** The same for a superform: its options for the draft and the words. With `queue`, a save made
+ * without a signal is handed to it (to wait on this device) instead of being refused. */
+export function keptSuperForm(
+	draft: FormDraft,
+	show: (words: string | null) => void,
+	queue?: (sent: FormData) => void
+) {
+	let last: FormData | null = null;
+	const hand = (sent: FormData) => {
+		draft.sent();
+		queue!(sent);
+	};
 	return {
-		onSubmit: () => show(null),
+		onSubmit: ({ formData, cancel }: { formData: FormData; cancel: () => void }) => {
+			show(null);
+			last = formData;
+			if (queue && typeof navigator !== 'undefined' && !navigator.onLine) {
+				cancel();
+				hand(formData);
+			}
+		},
 		onResult: ({ result }: { result: { type: string } }) => {
 			if (result.type === 'redirect' || result.type === 'success') draft.sent();
 			else draft.failed();
@@ -42,7 +59,9 @@ export function keptSuperForm(draft: FormDraft, show: (words: string | null) => 
 		onError: ({ result }: { result: { status?: number } }) => {
 			// No answer at all (the signal dropped at the track) or a server fault: nothing was saved.
 			draft.failed();
-			show(notSentWords(Number(result.status ?? 0)));
+			const status = Number(result.status ?? 0);
+			if (queue && !status && last) hand(last);
+			else show(notSentWords(status));
 		}
 	};
 }

@@ -21,8 +21,20 @@ export async function createOnce(
 	body: unknown,
 	create: () => Promise<Record<string, unknown>>
 ): Promise<Response> {
+	const { status, answer, replayed } = await once(request, userId, body, create);
+	return json(answer, { status, headers: replayed ? { 'Idempotent-Replayed': 'true' } : {} });
+}
+
+/** The same for any door (a JSON route, or a form action sent again by the page's send queue):
+ * the first answer, made now or replayed. Without a key, `create` simply runs. */
+export async function once(
+	request: Request,
+	userId: string,
+	body: unknown,
+	create: () => Promise<Record<string, unknown>>
+): Promise<{ status: number; answer: Record<string, unknown>; replayed: boolean }> {
 	const key = request.headers.get('idempotency-key');
-	if (key === null) return json(await create(), { status: 201 });
+	if (key === null) return { status: 201, answer: await create(), replayed: false };
 	if (!/^[\x21-\x7e]{1,200}$/.test(key))
 		throw new Failure(400, 'An Idempotency-Key is 1 to 200 printable characters, no spaces.');
 	const fingerprint = createHash('sha256')
@@ -44,14 +56,14 @@ export async function createOnce(
 			return made;
 		});
 		await forgetOld(userId);
-		return json(answer, { status: 201 });
+		return { status: 201, answer, replayed: false };
 	} catch (e) {
 		if (!(e instanceof UniqueConstraintError)) throw e;
 		return replay(userId, key, fingerprint);
 	}
 }
 
-async function replay(userId: string, key: string, fingerprint: string): Promise<Response> {
+async function replay(userId: string, key: string, fingerprint: string) {
 	const [row] = await db().query<{ fingerprint: string; status: number; body: string | null }>(
 		'SELECT fingerprint, status, body FROM idempotency_keys WHERE user_id = ? AND idem_key = ?',
 		{ replacements: [userId, key], type: QueryTypes.SELECT }
@@ -60,10 +72,11 @@ async function replay(userId: string, key: string, fingerprint: string): Promise
 		throw new Failure(409, 'That request is still being made; try again in a moment.');
 	if (row.fingerprint !== fingerprint)
 		throw new Failure(422, 'That Idempotency-Key was already used for a different request.');
-	return json(JSON.parse(row.body), {
+	return {
 		status: row.status,
-		headers: { 'Idempotent-Replayed': 'true' }
-	});
+		answer: JSON.parse(row.body) as Record<string, unknown>,
+		replayed: true
+	};
 }
 
 async function forgetOld(userId: string) {

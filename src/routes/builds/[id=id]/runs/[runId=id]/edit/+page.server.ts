@@ -5,6 +5,7 @@ import { removeRun, runFromColumns, saveRun } from '$lib/server/sheet/service';
 import { formFailure } from '$lib/server/web/form-failure';
 import { unitsFor } from '$lib/server/sheet/units';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
+import { toForm } from '$lib/sheet/schema';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -22,7 +23,7 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	save: async (event) => {
 		const { build, run } = await editRun(event);
-		const { form, stored, version } = await readSheetForm(
+		const { form, stored, version, units } = await readSheetForm(
 			event.request,
 			'run',
 			RUN_FIELDS,
@@ -32,7 +33,8 @@ export const actions: Actions = {
 		try {
 			await saveRun(build.id, run.setupId, stored, { id: run.id, version });
 		} catch (e) {
-			return formFailure(form, e);
+			const values = toForm(RUN_FIELDS, runFromColumns(run), units);
+			return formFailure(form, e, { values, version: run.version });
 		}
 		redirect(303, `/builds/${build.id}/edit`);
 	},

@@ -3,6 +3,8 @@ import { editSetup } from '$lib/server/sheet/access';
 import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
 import { carriedRunValues, saveRun } from '$lib/server/sheet/service';
 import { unitsFor } from '$lib/server/sheet/units';
+import { requireUser } from '$lib/server/guard';
+import { once } from '$lib/server/web/idempotency';
 import { RUN_FIELDS } from '$lib/sheet/run-fields';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -35,7 +37,10 @@ export const actions: Actions = {
 		const { build, setup } = await editSetup(event);
 		const { form, stored } = await readSheetForm(event.request, 'run', RUN_FIELDS, 'complete');
 		if (!form.valid) return fail(400, { form });
-		await saveRun(build.id, setup.id, stored);
+		// The page's send queue sends a run kept offline with a key: a resend makes nothing new.
+		await once(event.request, requireUser(event).id, stored, () =>
+			saveRun(build.id, setup.id, stored)
+		);
 		redirect(303, `/builds/${build.id}/edit`);
 	}
 };

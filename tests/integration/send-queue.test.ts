@@ -1,0 +1,107 @@
+import { describe, expect, it } from 'vitest';
+import * as runsNew from '../../src/routes/builds/[id=id]/setups/[setupId=id]/runs/new/+page.server';
+import * as setupEdit from '../../src/routes/builds/[id=id]/setups/[setupId=id]/edit/+page.server';
+import * as runs from '../../src/lib/server/sheet/runs';
+import * as setups from '../../src/lib/server/sheet/setups';
+import { saveSetup } from '../../src/lib/server/sheet/service';
+import { toForm } from '../../src/lib/sheet/schema';
+import { RUN_FIELDS } from '../../src/lib/sheet/run-fields';
+import { SETUP_FIELDS } from '../../src/lib/sheet/setup-fields';
+import { asUser, fakeEvent } from '../support/events';
+import { makeUser } from '../support/factories';
+import { publishedBuild } from '../support/moderation-fixtures';
+import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
+
+// The page's send queue posts to the forms' own actions once the signal is back.
+
+/** A form's typed values as the browser posts them (a ticked box is "on", an empty one absent). */
+function posted(values: Record<string, unknown>, extra: Record<string, string> = {}) {
+	const fd = new FormData();
+	for (const [k, v] of Object.entries({ ...values, ...extra })) {
+		if (v === false || v === null || v === undefined) continue;
+		fd.set(k, v === true ? 'on' : String(v));
+	}
+	return fd;
+}
+
+async function outcome(run: () => unknown) {
+	try {
+		return { answer: await run() };
+	} catch (e) {
+		return { thrown: e as { status?: number; location?: string } };
+	}
+}
+
+describe('changes sent again from the send queue', () => {
+	it('a new run sent twice with one Idempotency-Key is saved once', async () => {
+		const me = await makeUser();
+		const { build, setupId } = await publishedBuild(me.id, 'Queue twice fixture');
+		const params = { id: String(build.id), setupId: String(setupId) };
+		const path = `/builds/${build.id}/setups/${setupId}/runs/new`;
+		const send = (key: string) =>
+			outcome(() =>
+				runsNew.actions.create(
+					fakeEvent({
+						user: asUser(me),
+						params,
+						path,
+						request: {
+							method: 'POST',
+							body: posted(toForm(RUN_FIELDS, fixtureRun(68.2), 'metric')),
+							headers: { 'idempotency-key': key }
+						}
+					})
+				)
+			);
+		const first = await send('queued-run-1');
+		expect(first.thrown?.status).toBe(303);
+		// The answer was lost on the way back; the queue sends the same change again.
+		const again = await send('queued-run-1');
+		expect(again.thrown?.status).toBe(303);
+		const speeds = (await runs.listForBuild(build.id)).map((r) => Number(r.speedKmh));
+		expect(speeds.filter((s) => s === 68.2)).toHaveLength(1);
+		// Another change (another key) is another run.
+		await send('queued-run-2');
+		expect((await runs.listForBuild(build.id)).length).toBe(3);
+	});
+
+	it('a stale setup change answers 409 with what the server holds, in the units it was typed in', async () => {
+		const me = await makeUser();
+		const { build, setupId } = await publishedBuild(me.id, 'Queue conflict fixture');
+		const first = (await setups.read(build.id, setupId))!;
+		// Saved elsewhere meanwhile: the pilot jet and the bore.
+		await saveSetup(
+			build.id,
+			{ ...FIXTURE_SETUP, changeNote: 'Kit on', pilotJet: 40, bore: 50.8 },
+			{ id: setupId, version: first.version }
+		);
+		const mine = toForm(
+			SETUP_FIELDS,
+			{ ...FIXTURE_SETUP, changeNote: 'Kit on', mainJet: 98 },
+			'imperial'
+		);
+		const result = await setupEdit.actions.save(
+			fakeEvent({
+				user: asUser(me),
+				params: { id: String(build.id), setupId: String(setupId) },
+				path: `/builds/${build.id}/setups/${setupId}/edit`,
+				request: {
+					method: 'POST',
+					body: posted(mine, { units: 'imperial', version: String(first.version) })
+				}
+			})
+		);
+		const failure = result as {
+			status: number;
+			data: { current: { values: Record<string, unknown>; version: number } };
+		};
+		expect(failure.status).toBe(409);
+		expect(failure.data.current.version).toBe(first.version + 1);
+		expect(failure.data.current.values.pilotJet).toBe(40);
+		// NIST SP 811, Appendix B: 1 in = 25.4 mm exactly, so 50.8 mm = 2 in.
+		expect(failure.data.current.values.bore).toBe(2);
+		expect(failure.data.current.values.mainJet).toBe(92);
+		// Nothing of the stale change was saved.
+		expect((await setups.read(build.id, setupId))!.config.mainJet).toBe(92);
+	});
+});
