@@ -1,19 +1,33 @@
 import type { Config } from 'tailwindcss';
 
 // Squishline's workshop-notebook tokens. One accent: "gasket copper", the colour of an
-// annealed copper head gasket. Everything else is paper and graphite.
+// annealed copper head gasket. Everything else is paper and graphite. Each token is a CSS
+// variable (its light and dark values are in app.css), so both themes are the same design.
 export default {
 	content: ['./src/**/*.{html,js,svelte,ts}'],
 	theme: {
 		extend: {
 			colors: {
-				paper: { DEFAULT: '#f6f1e7', deep: '#ece4d4', edge: '#d8cdb8' },
-				graphite: { DEFAULT: '#2a2926', soft: '#55524b', faint: '#8a857a' },
-				copper: { DEFAULT: '#a8471f', deep: '#7f3514', wash: '#f3dccd' },
-				rule: '#c9d6dc',
-				caution: { DEFAULT: '#8a5a00', wash: '#f7e7bf' },
-				fault: { DEFAULT: '#9b1c1c', wash: '#f6d5d0' },
-				sound: { DEFAULT: '#2f5d3a', wash: '#d9ead9' }
+				paper: {
+					DEFAULT: 'var(--sl-paper)',
+					deep: 'var(--sl-paper-deep)',
+					edge: 'var(--sl-paper-edge)',
+					field: 'var(--sl-paper-field)'
+				},
+				graphite: {
+					DEFAULT: 'var(--sl-graphite)',
+					soft: 'var(--sl-graphite-soft)',
+					faint: 'var(--sl-graphite-faint)'
+				},
+				copper: {
+					DEFAULT: 'var(--sl-copper)',
+					deep: 'var(--sl-copper-deep)',
+					wash: 'var(--sl-copper-wash)'
+				},
+				rule: 'var(--sl-rule)',
+				caution: { DEFAULT: 'var(--sl-caution)', wash: 'var(--sl-caution-wash)' },
+				fault: { DEFAULT: 'var(--sl-fault)', wash: 'var(--sl-fault-wash)' },
+				sound: { DEFAULT: 'var(--sl-sound)', wash: 'var(--sl-sound-wash)' }
 			},
 			fontFamily: {
 				sans: ['"Source Sans 3"', 'system-ui', 'sans-serif'],

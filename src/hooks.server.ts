@@ -1,3 +1,4 @@
+import { themeAttribute } from '$lib/server/web/theme';
 import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from '$lib/server/auth';
@@ -41,6 +42,7 @@ export const handle = sequence(
 	currentUser,
 	changesReadPrimary,
 	publicCache,
+	themeAttribute,
 	htmlSlots
 );
 

@@ -12,6 +12,7 @@ const asCurrent = (id: string, role: CurrentUser['role']): CurrentUser => ({
 	name: 'Tester',
 	role,
 	units: 'metric',
+	theme: 'device',
 	suspension: null
 });
 

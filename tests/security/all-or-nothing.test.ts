@@ -64,6 +64,7 @@ describe("an admin's sign-out-everywhere is logged or not done", () => {
 			name: 'Admin',
 			role: 'admin' as const,
 			units: 'metric' as const,
+			theme: 'device' as const,
 			suspension: null
 		};
 		const { LogEntry } = models();

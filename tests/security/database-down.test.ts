@@ -20,6 +20,7 @@ const member = {
 	name: 'M',
 	role: 'member',
 	units: 'metric',
+	theme: 'device',
 	suspension: null
 };
 

@@ -43,6 +43,7 @@ const asCurrent = async (id: string): Promise<CurrentUser> => {
 		name: u.name ?? '',
 		role: u.role,
 		units: 'metric',
+		theme: 'device',
 		suspension: null
 	};
 };

@@ -42,5 +42,6 @@ export const asUser = (
 	name: 'Tester',
 	role,
 	units: 'metric',
+	theme: 'device',
 	suspension: null
 });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { THEMES } from '../theme';
 
 export const PASSWORD_MIN = 10;
 
@@ -41,6 +42,7 @@ export const newPasswordSchema = z
 export const profileSchema = z.object({
 	name: z.string().trim().min(2, { error: 'Give a name of at least 2 characters.' }).max(80),
 	units: z.enum(['metric', 'imperial']),
+	theme: z.enum(THEMES).default('device'),
 	mailComments: z.boolean().default(false),
 	mailShop: z.boolean().default(false)
 });

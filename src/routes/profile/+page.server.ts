@@ -15,6 +15,7 @@ export const load: PageServerLoad = async (event) => {
 		{
 			name: row?.name ?? me.name,
 			units: row?.units ?? 'metric',
+			theme: row?.theme ?? 'device',
 			mailComments: row?.mailComments ?? true,
 			mailShop: row?.mailShop ?? true
 		},

@@ -1,5 +1,6 @@
 import { activeSuspension, type Suspension } from '../../review/suspension';
 import type { Role } from '../../roles';
+import type { Theme } from '../../theme';
 import { replicated } from '../db/connection';
 import * as users from './users';
 
@@ -9,6 +10,8 @@ export type CurrentUser = {
 	name: string;
 	role: Role;
 	units: 'metric' | 'imperial';
+	/** Light or dark pages, or whatever the device prefers. */
+	theme: Theme;
 	/** Set while suspended: the member reads but cannot change anything (see the guard). */
 	suspension: Suspension | null;
 };
@@ -37,6 +40,7 @@ export async function loadCurrentUser(
 			name: row.name ?? row.email.split('@')[0],
 			role: row.role,
 			units: row.units,
+			theme: row.theme,
 			suspension: activeSuspension(row, now)
 		}
 	};

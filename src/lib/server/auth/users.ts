@@ -9,6 +9,7 @@ export type UserPatch = Partial<
 		User,
 		| 'name'
 		| 'units'
+		| 'theme'
 		| 'mailComments'
 		| 'mailShop'
 		| 'role'

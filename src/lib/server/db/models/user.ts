@@ -7,6 +7,7 @@ import {
 	type Sequelize
 } from 'sequelize';
 import { ROLES, type Role } from '../../../roles';
+import { THEMES, type Theme } from '../../../theme';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
 	declare id: CreationOptional<string>;
@@ -22,6 +23,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 	/** NULL with suspendedAt set: suspended until lifted. */
 	declare suspendedUntil: CreationOptional<Date | null>;
 	declare units: CreationOptional<'metric' | 'imperial'>;
+	declare theme: CreationOptional<Theme>;
 	declare mailComments: CreationOptional<boolean>;
 	declare mailShop: CreationOptional<boolean>;
 	/** Sessions issued under an older generation are refused (auth/sessions.ts). */
@@ -46,6 +48,11 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 					type: DataTypes.ENUM('metric', 'imperial'),
 					allowNull: false,
 					defaultValue: 'metric'
+				},
+				theme: {
+					type: DataTypes.ENUM(...THEMES),
+					allowNull: false,
+					defaultValue: 'device'
 				},
 				mailComments: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
 				mailShop: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },

@@ -1,0 +1,93 @@
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type Page } from '@playwright/test';
+import { publishedBuild } from '../support/moderation-fixtures';
+import { makeUser, open, signInWithPassword } from './support';
+
+// Both themes on the main pages, read by axe-core (WCAG 2.x A and AA rules): nothing serious or
+// critical, contrast included. The dark theme is reached as a device that prefers it would.
+
+async function problems(page: Page) {
+	const { violations } = await new AxeBuilder({ page })
+		.withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'])
+		.analyze();
+	return violations
+		.filter((v) => v.impact === 'serious' || v.impact === 'critical')
+		.map(
+			(v) =>
+				`${v.id}: ${v.help} — ${v.nodes
+					.map((n) => n.target.join(' '))
+					.slice(0, 3)
+					.join(' | ')}`
+		);
+}
+
+for (const scheme of ['light', 'dark'] as const) {
+	test.describe(`${scheme} pages`, () => {
+		test.use({ colorScheme: scheme });
+		test.slow(); // axe reads each page whole
+
+		test('the page ground follows the device', async ({ page }) => {
+			await open(page, '/');
+			const ground = await page.evaluate(
+				() => getComputedStyle(document.documentElement).backgroundColor
+			);
+			// --sl-paper in app.css
+			expect(ground).toBe(scheme === 'dark' ? 'rgb(28, 27, 25)' : 'rgb(246, 241, 231)');
+		});
+
+		test('the public pages have no serious accessibility problems', async ({ page }) => {
+			const me = await makeUser();
+			const { build } = await publishedBuild(me.id, `Axe ${scheme} fixture`);
+			for (const url of [
+				'/',
+				'/builds',
+				`/builds/${build.id}`,
+				'/close',
+				'/speed-map',
+				'/change-effects',
+				'/slide-rule',
+				'/slide-rule/retune',
+				'/shops',
+				'/signin'
+			]) {
+				await open(page, url);
+				expect(await problems(page), url).toEqual([]);
+			}
+		});
+
+		test('a member’s pages have no serious accessibility problems', async ({ page }) => {
+			const me = await makeUser({ password: 'Axe-member-2026' });
+			const { build, setupId } = await publishedBuild(me.id, `Axe member ${scheme} fixture`);
+			await signInWithPassword(page, me.email, 'Axe-member-2026', '/bench');
+			await page.waitForURL(/\/bench$/);
+			for (const url of [
+				'/bench',
+				`/builds/${build.id}/edit`,
+				`/builds/${build.id}/setups/${setupId}/runs/new`,
+				'/profile'
+			]) {
+				await open(page, url);
+				expect(await problems(page), url).toEqual([]);
+			}
+		});
+	});
+}
+
+test('a member’s own choice of dark pages holds on a device that prefers light', async ({
+	page
+}) => {
+	const me = await makeUser({ password: 'Dark-choice-2026' });
+	await signInWithPassword(page, me.email, 'Dark-choice-2026', '/profile');
+	await page.waitForURL(/\/profile$/);
+	await open(page, '/profile');
+	await page.getByRole('radio', { name: /^Dark/ }).check();
+	await page.getByRole('button', { name: /^Save/ }).first().click();
+	await expect(page.getByText('Saved.')).toBeVisible();
+	await open(page, '/bench');
+	await expect(page.locator('html')).toHaveAttribute('data-theme', 'dark');
+	const ground = await page.evaluate(
+		() => getComputedStyle(document.documentElement).backgroundColor
+	);
+	expect(ground).toBe('rgb(28, 27, 25)'); // --sl-paper, dark
+	expect(await problems(page)).toEqual([]);
+});
