@@ -1,6 +1,8 @@
 import { expect, test } from '@playwright/test';
-import { saveRun } from '../../src/lib/server/sheet/service';
-import { fixtureRun } from '../support/sheet-fixtures';
+import * as builds from '../../src/lib/server/sheet/builds';
+import * as runs from '../../src/lib/server/sheet/runs';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
+import { FIXTURE_SETUP, fixtureRun } from '../support/sheet-fixtures';
 import { publishedBuild } from '../support/moderation-fixtures';
 import { hydrated, makeUser, open, signInWithPassword } from './support';
 
@@ -76,4 +78,34 @@ test('a save that meets no signal says so, keeps what was typed and can be press
 	expect(
 		JSON.stringify(await (await page.request.get(`/api/builds/${build.id}`)).json())
 	).toContain('No signal fixture, 70 cc');
+});
+
+test('the first run can be logged with just its speed, method and date', async ({ page }) => {
+	const me = await makeUser({ password: 'First-run-2026' });
+	const b = await builds.create(me.id, {
+		title: 'First run fixture',
+		chassis: 'Fenwick Lark 12-inch'
+	});
+	const s = (await saveSetup(b.id, { ...FIXTURE_SETUP, changeNote: 'Stock' })) as { id: number };
+	await signInWithPassword(
+		page,
+		me.email,
+		'First-run-2026',
+		`/builds/${b.id}/setups/${s.id}/runs/new`
+	);
+	await page.waitForURL(/\/runs\/new$/);
+	await hydrated(page);
+	await expect(page.getByTestId('carried-over')).toHaveCount(0); // nothing to carry yet
+	await page.getByLabel(/^Top speed/).fill('49.8');
+	await page.getByLabel(/^Measured with/).selectOption('phone-gps');
+	await page.getByLabel(/^Relative humidity/).fill(''); // the form's 50 % guess taken back
+	await page.getByRole('button', { name: 'Save run' }).click();
+	await page.waitForURL(new RegExp(`/builds/${b.id}/edit`));
+	const [run] = await runs.listForBuild(b.id);
+	expect([Number(run.speedKmh), run.method, run.venue, run.elevationM]).toEqual([
+		49.8,
+		'phone-gps',
+		null,
+		null
+	]);
 });

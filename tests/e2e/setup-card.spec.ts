@@ -29,6 +29,6 @@ test('a setup card reads as words: a space around "·", and no two-way legend wi
 	await signInWithPassword(page, owner.email, owner.password, '/builds/new');
 	await page.waitForURL('**/builds/new');
 	await expect(page.getByText(/Showing/)).toContainText(
-		'switch to imperial (unsaved changes on this page are lost)'
+		'switch to imperial (what you typed is kept and converted)'
 	);
 });

@@ -105,3 +105,44 @@ describe('changes sent again from the send queue', () => {
 		expect((await setups.read(build.id, setupId))!.config.mainJet).toBe(92);
 	});
 });
+
+describe('a run logged at the track with just its speed, method and date', () => {
+	it('is saved from the form, and its place and air can be added later', async () => {
+		const me = await makeUser();
+		const { build, setupId } = await publishedBuild(me.id, 'Three taps fixture');
+		const params = { id: String(build.id), setupId: String(setupId) };
+		const sent = await outcome(() =>
+			runsNew.actions.create(
+				fakeEvent({
+					user: asUser(me),
+					params,
+					path: `/builds/${build.id}/setups/${setupId}/runs/new`,
+					// What the form posts when only these were filled (its two presets go along).
+					form: {
+						runOn: '2026-06-14',
+						speed: '72.3',
+						method: 'radar',
+						pressureKind: 'sea-level',
+						chtSensor: 'plug-washer',
+						units: 'metric'
+					}
+				})
+			)
+		);
+		expect(sent.thrown?.status).toBe(303);
+		const run = (await runs.listForBuild(build.id)).find((r) => Number(r.speedKmh) === 72.3)!;
+		expect(run).toBeDefined();
+		expect([run.venue, run.elevationM, run.tempC, run.humidityPct]).toEqual([
+			null,
+			null,
+			null,
+			null
+		]);
+		// Nothing is worked out from air that was not recorded.
+		expect([run.airDensity, run.seaLevelJet]).toEqual([null, null]);
+		// It is the build's best run now, and the lists and the speed map still read it.
+		const setup = (await setups.read(build.id, setupId))!;
+		expect(Number(setup.bestRunKmh)).toBe(72.3);
+		expect(setup.bestRunElevationM).toBeNull();
+	});
+});

@@ -100,14 +100,16 @@ export function deriveSetup(c: Config): SetupDerived {
 }
 
 export type RunAir = {
-	elevationM: number;
-	tempC: number;
-	humidityPct: number;
+	elevationM: number | null;
+	tempC: number | null;
+	humidityPct: number | null;
 	pressureKpa: number | null;
 	pressureKind: 'sea-level' | 'station';
 };
 
-export function runConditions(r: RunAir): t.AirConditions {
+/** The run's air for the formulas, or null while its place and air are not recorded. */
+export function runConditions(r: RunAir): t.AirConditions | null {
+	if (r.elevationM === null || r.tempC === null || r.humidityPct === null) return null;
 	const c: t.AirConditions = {
 		elevationM: r.elevationM,
 		tempC: r.tempC,
@@ -119,13 +121,15 @@ export function runConditions(r: RunAir): t.AirConditions {
 }
 
 export function deriveRun(r: RunAir, c: Config) {
-	const air = safe(() => t.airAt(runConditions(r)));
+	const conditions = runConditions(r);
+	if (!conditions) return { airDensity: null, densityAltitudeM: null, seaLevelJet: null };
+	const air = safe(() => t.airAt(conditions));
 	const jet = num(c, 'mainJet');
 	const numbering = str(c, 'jetNumbering') === 'flow' ? 'flow' : 'diameter';
 	return {
 		airDensity: air?.densityKgM3 ?? null,
 		densityAltitudeM: air?.densityAltitudeM ?? null,
-		seaLevelJet: jet ? safe(() => t.seaLevelEquivalentJet(jet, runConditions(r), numbering)) : null
+		seaLevelJet: jet ? safe(() => t.seaLevelEquivalentJet(jet, conditions, numbering)) : null
 	};
 }
 

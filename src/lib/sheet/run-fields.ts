@@ -19,7 +19,8 @@ export const RUN_FIELDS: Field[] = [
 		section: 'Run',
 		kind: 'select',
 		options: VENUES,
-		hint: 'Never make speed runs on public roads.'
+		hint: 'Never make speed runs on public roads.',
+		optional: true
 	},
 	{
 		name: 'elevation',
@@ -28,7 +29,8 @@ export const RUN_FIELDS: Field[] = [
 		kind: 'number',
 		dim: 'elevation',
 		min: -450,
-		max: 5500
+		max: 5500,
+		optional: true
 	},
 	{
 		name: 'temp',
@@ -37,7 +39,8 @@ export const RUN_FIELDS: Field[] = [
 		kind: 'number',
 		dim: 'temp',
 		min: -40,
-		max: 55
+		max: 55,
+		optional: true
 	},
 	{
 		name: 'humidity',
@@ -46,7 +49,8 @@ export const RUN_FIELDS: Field[] = [
 		kind: 'number',
 		unit: '%',
 		min: 0,
-		max: 100
+		max: 100,
+		optional: true
 	},
 	{
 		name: 'pressure',

@@ -19,8 +19,8 @@ export type Column = {
 		kmh: number;
 		method: string;
 		twoWay: boolean;
-		venue: string;
-		elevationM: number;
+		venue: string | null;
+		elevationM: number | null;
 		airDensity: number | null;
 	} | null;
 	partsTotal: string;
@@ -143,7 +143,7 @@ export function sideBySide(cols: Column[], units: Units): Section[] {
 			),
 			row(
 				'Where',
-				cols.map((c) => c.best?.venue.replace('-', ' ') ?? '—')
+				cols.map((c) => c.best?.venue?.replace('-', ' ') ?? '—')
 			),
 			row(
 				'Elevation',

@@ -21,6 +21,7 @@ import * as m017 from './migrations/2026.12.03T08.00.00.rate-limits';
 import * as m018 from './migrations/2026.12.03T12.00.00.sea-level-jet-dry-air';
 import * as m019 from './migrations/2026.12.03T12.30.00.riding-conditions';
 import * as m020 from './migrations/2026.12.03T14.10.00.theme';
+import * as m021 from './migrations/2026.12.03T14.30.00.run-air-optional';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -45,7 +46,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.03T08.00.00.rate-limits', ...m017 },
 	{ name: '2026.12.03T12.00.00.sea-level-jet-dry-air', ...m018 },
 	{ name: '2026.12.03T12.30.00.riding-conditions', ...m019 },
-	{ name: '2026.12.03T14.10.00.theme', ...m020 }
+	{ name: '2026.12.03T14.10.00.theme', ...m020 },
+	{ name: '2026.12.03T14.30.00.run-air-optional', ...m021 }
 ];
 
 export function migrator() {

@@ -62,7 +62,9 @@ export async function listRunPlaces(me: CurrentUser, limit = 20): Promise<RunPla
 		`SELECT r.id, r.run_on, r.speed_kmh, r.elevation_m, r.temp_c, r.humidity_pct, r.pressure_kpa,
 			r.pressure_kind, b.title, s.config
 		FROM runs r JOIN builds b ON b.id = r.build_id JOIN setups s ON s.id = r.setup_id
-		WHERE b.owner_id = :me ORDER BY r.run_on DESC, r.id DESC LIMIT :limit`,
+		WHERE b.owner_id = :me
+			AND r.elevation_m IS NOT NULL AND r.temp_c IS NOT NULL AND r.humidity_pct IS NOT NULL
+		ORDER BY r.run_on DESC, r.id DESC LIMIT :limit`,
 		{ replacements: { me: me.id, limit }, type: QueryTypes.SELECT }
 	);
 	return rows.map((r) => {

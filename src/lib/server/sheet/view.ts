@@ -61,7 +61,8 @@ export async function buildView(b: Build, units: Units, rows: SheetRows, now: Da
 		const retune = new URLSearchParams({ units: 'metric' });
 		if (typeof config.mainJet === 'number') retune.set('jet', String(config.mainJet));
 		if (typeof config.jetNumbering === 'string') retune.set('numbering', config.jetNumbering);
-		if (best) {
+		// The retune starts from the best run's air when it was recorded.
+		if (best && best.elevationM !== null && best.tempC !== null && best.humidityPct !== null) {
 			retune.set('fromElevation', String(best.elevationM));
 			retune.set('fromTemp', String(best.tempC));
 			retune.set('fromHumidity', String(best.humidityPct));

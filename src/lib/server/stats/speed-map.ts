@@ -69,7 +69,6 @@ function filters(q: SpeedMapQuery) {
 		methods: q.method.length ? q.method : ALL.method,
 		pipes: q.pipe.length ? q.pipe : ALL.pipe,
 		twoWay: q.twoWay ? [1] : ALL.twoWay,
-		venues: q.closed ? ['closed-course'] : ALL.venue,
 		cycles: q.cycle ? [q.cycle] : ALL.cycle
 	};
 	// Unfiltered, a plain scan of the index is cheaper than 192 little ranges.
@@ -81,7 +80,8 @@ function filters(q: SpeedMapQuery) {
 					's.best_run_method IN (:methods)',
 					's.close_pipe IN (:pipes)',
 					's.best_run_two_way IN (:twoWay)',
-					's.best_run_venue IN (:venues)',
+					// A run whose place is not recorded counts unless closed courses are asked for.
+					...(q.closed ? ["s.best_run_venue = 'closed-course'"] : []),
 					's.engine_cycle IN (:cycles)'
 				]
 			: []),

@@ -15,10 +15,11 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
 	declare speedKmh: number;
 	declare method: 'gps-logger' | 'phone-gps' | 'radar' | 'speedometer';
 	declare twoWay: boolean;
-	declare venue: 'closed-course' | 'private-ground' | 'other';
-	declare elevationM: number;
-	declare tempC: number;
-	declare humidityPct: number;
+	/** Place and air may wait to be added later (null: not recorded). */
+	declare venue: 'closed-course' | 'private-ground' | 'other' | null;
+	declare elevationM: number | null;
+	declare tempC: number | null;
+	declare humidityPct: number | null;
 	declare pressureKpa: number | null;
 	declare pressureKind: 'sea-level' | 'station';
 	declare chtCruiseC: number | null;
@@ -52,13 +53,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
 					allowNull: false
 				},
 				twoWay: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-				venue: {
-					type: DataTypes.ENUM('closed-course', 'private-ground', 'other'),
-					allowNull: false
-				},
-				elevationM: { type: real, allowNull: false },
-				tempC: { type: real, allowNull: false },
-				humidityPct: { type: real, allowNull: false },
+				venue: DataTypes.ENUM('closed-course', 'private-ground', 'other'),
+				elevationM: real,
+				tempC: real,
+				humidityPct: real,
 				pressureKpa: real,
 				pressureKind: {
 					type: DataTypes.ENUM('sea-level', 'station'),
