@@ -3,6 +3,7 @@ import * as runs from '../../src/lib/server/sheet/runs';
 import * as setups from '../../src/lib/server/sheet/setups';
 import { saveSetup } from '../../src/lib/server/sheet/service';
 import { FIXTURE_SETUP } from '../support/sheet-fixtures';
+import { phonePhoto } from '../support/photos';
 import { publishedBuild } from '../support/moderation-fixtures';
 import { hydrated, makeUser, open, signInWithPassword } from './support';
 
@@ -154,4 +155,43 @@ test('a queued change against a setup edited elsewhere is shown beside it and no
 	expect(saved.mainJet).toBe(98);
 	expect(saved.needleClip).toBe(3);
 	expect(saved.pilotJet).toBe(40);
+});
+
+test('a photo chosen without a signal waits on the device and goes once the signal is back', async ({
+	page,
+	context
+}) => {
+	const { build } = await member(page, 'Offline photo fixture');
+	const editPage = `/builds/${build.id}/edit`;
+	await openOnline(page, editPage);
+	await context.setOffline(true);
+	await open(page, editPage);
+	await page.getByLabel('Caption', { exact: true }).first().fill('Crushed solder at 0.8 mm');
+	await page
+		.getByLabel(/^Photo \(JPEG/)
+		.setInputFiles({ name: 'solder.jpg', mimeType: 'image/jpeg', buffer: await phonePhoto() });
+	await page.getByRole('button', { name: 'Upload the photo' }).click();
+	await expect(page.getByTestId('photo-kept')).toContainText('waiting to send');
+	const queue = page.getByTestId('send-queue');
+	await expect(queue).toContainText('A photo (“Crushed solder at 0.8 mm”)');
+	await expect(queue).toContainText('1 waiting to send');
+
+	await context.setOffline(false);
+	await expect(queue.getByTestId('queued').first()).toContainText('accepted');
+	const photos = (await (await page.request.get(`/api/builds/${build.id}/photos`)).json()).photos;
+	expect(photos.map((p: { caption: string }) => p.caption)).toEqual(['Crushed solder at 0.8 mm']);
+	// The page shows it without a reload, and the file is no longer kept on the device.
+	await expect(page.getByRole('img', { name: /Crushed solder/ })).toBeVisible();
+	expect(
+		await page.evaluate(
+			() =>
+				new Promise<number>((resolve) => {
+					const open = indexedDB.open('squishline-offline');
+					open.onsuccess = () => {
+						const count = open.result.transaction('files').objectStore('files').count();
+						count.onsuccess = () => resolve(count.result);
+					};
+				})
+		)
+	).toBe(0);
 });

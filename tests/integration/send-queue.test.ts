@@ -1,4 +1,7 @@
+import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
+import { POST as photoPost } from '../../src/routes/api/builds/[id=id]/photos/+server';
+import { listPhotos } from '../../src/lib/server/sheet/photos';
 import * as runsNew from '../../src/routes/builds/[id=id]/setups/[setupId=id]/runs/new/+page.server';
 import * as setupEdit from '../../src/routes/builds/[id=id]/setups/[setupId=id]/edit/+page.server';
 import * as runs from '../../src/lib/server/sheet/runs';
@@ -144,5 +147,41 @@ describe('a run logged at the track with just its speed, method and date', () =>
 		const setup = (await setups.read(build.id, setupId))!;
 		expect(Number(setup.bestRunKmh)).toBe(72.3);
 		expect(setup.bestRunElevationM).toBeNull();
+	});
+});
+
+describe('a photo kept offline and sent again', () => {
+	it('is stored once for one Idempotency-Key', async () => {
+		const me = await makeUser();
+		const { build } = await publishedBuild(me.id, 'Photo twice fixture');
+		const png = await sharp({
+			create: { width: 40, height: 30, channels: 3, background: '#556677' }
+		})
+			.png()
+			.toBuffer();
+		const send = async () => {
+			const fd = new FormData();
+			fd.set('file', new File([new Uint8Array(png)], 'head.png', { type: 'image/png' }));
+			fd.set('caption', 'Head off, squish band clean');
+			const r = (await photoPost(
+				fakeEvent({
+					user: asUser(me),
+					params: { id: String(build.id) },
+					path: `/api/builds/${build.id}/photos`,
+					request: { method: 'POST', body: fd, headers: { 'idempotency-key': 'kept-photo-1' } }
+				}) as never
+			)) as Response;
+			return {
+				status: r.status,
+				body: await r.json(),
+				replayed: r.headers.get('idempotent-replayed')
+			};
+		};
+		const first = await send();
+		const again = await send();
+		expect([first.status, again.status]).toEqual([201, 201]);
+		expect(again.replayed).toBe('true');
+		expect(again.body.id).toBe(first.body.id);
+		expect((await listPhotos(build.id)).length).toBe(1);
 	});
 });

@@ -4,13 +4,19 @@
 // answer makes nothing new). A change that meets a newer version on the server stops the line
 // and is shown beside the server's copy; nothing is overwritten until the member chooses.
 import { deserialize } from '$app/forms';
+import { invalidateAll } from '$app/navigation';
 import { draftKey, writeDraft } from '../drafts/store';
+import { dropFile, keptFileIds, readFile } from './files';
 
 export type ServerCopy = { values: Record<string, unknown>; version: number };
 
 export type Waiting = {
-	/** Also the Idempotency-Key. */
+	/** Also the Idempotency-Key (and, for a photo, the key of its file in IndexedDB). */
 	id: string;
+	/** A form's POST (the default), or a photo sent to the JSON API with its file. */
+	kind?: 'form' | 'photo';
+	/** How much of a photo has gone, in per cent, while it is sending. */
+	progress?: number | null;
 	/** The form action it is sent to. */
 	url: string;
 	/** The form's page and name, to open it there again as a draft. */
@@ -69,15 +75,19 @@ class SendQueue {
 		if (owner === this.#owner) return;
 		this.#owner = owner;
 		this.items = owner ? read(keyOf(owner)) : [];
+		// Files that no waiting photo of this account names (another account's, or sent) go.
+		const mine = new Set(this.items.map((i) => i.id));
+		void keptFileIds().then((ids) => ids.filter((id) => !mine.has(id)).forEach(dropFile));
 	}
 
 	get waiting() {
 		return this.items.filter((i) => i.state !== 'accepted').length;
 	}
 
-	add(item: Omit<Waiting, 'id' | 'queuedAt' | 'state'>) {
+	add(item: Omit<Waiting, 'id' | 'queuedAt' | 'state'> & { id?: string }) {
 		if (!this.#owner) return;
-		this.items.push({ ...item, id: crypto.randomUUID(), queuedAt: Date.now(), state: 'waiting' });
+		const id = item.id ?? crypto.randomUUID();
+		this.items.push({ ...item, id, queuedAt: Date.now(), state: 'waiting' });
 		this.#save();
 		void this.flush();
 	}
@@ -88,18 +98,22 @@ class SendQueue {
 		if (this.#busy || !this.#owner || (typeof navigator !== 'undefined' && !navigator.onLine))
 			return;
 		this.#busy = true;
+		let arrived = 0;
 		try {
 			for (const item of this.items) {
 				if (item.state === 'accepted') continue;
 				if (item.state !== 'waiting') break;
 				item.state = 'sending';
 				if ((await send(item)) !== 'accepted') break;
+				arrived++;
 				this.#save();
 			}
 		} finally {
 			this.#busy = false;
 			this.#save();
 		}
+		// The page on screen shows what the server has now.
+		if (arrived) await invalidateAll();
 	}
 
 	/** After a conflict: send with the values chosen field by field, over the server's version. */
@@ -136,6 +150,7 @@ class SendQueue {
 
 	drop(id: string) {
 		this.items = this.items.filter((i) => i.id !== id);
+		void dropFile(id);
 		this.#save();
 	}
 
@@ -167,6 +182,7 @@ function read(key: string): Waiting[] {
 }
 
 async function send(item: Waiting): Promise<Waiting['state']> {
+	if (item.kind === 'photo') return sendPhoto(item);
 	const body = new FormData();
 	for (const [k, v] of item.fields) body.append(k, v);
 	let text: string;
@@ -199,6 +215,42 @@ async function send(item: Waiting): Promise<Waiting['state']> {
 		item.problem = refusal(result.data);
 	} else item.state = 'waiting'; // a server fault: nothing was saved; tried again later
 	return item.state;
+}
+
+/** A kept photo goes to the JSON API with its key, its progress shown as it goes. */
+async function sendPhoto(item: Waiting): Promise<Waiting['state']> {
+	const file = await readFile(item.id).catch(() => undefined);
+	if (!file) {
+		item.problem = 'The photo is no longer kept on this device: choose it again.';
+		return (item.state = 'refused');
+	}
+	const body = new FormData();
+	body.append('file', file, file instanceof File ? file.name : 'photo');
+	for (const [k, v] of item.fields) body.append(k, v);
+	item.progress = 0;
+	const status = await new Promise<{ code: number; text: string }>((resolve) => {
+		const xhr = new XMLHttpRequest();
+		xhr.open('POST', item.url);
+		xhr.setRequestHeader('idempotency-key', item.id);
+		xhr.upload.onprogress = (ev) => {
+			if (ev.lengthComputable) item.progress = Math.round((100 * ev.loaded) / ev.total);
+		};
+		xhr.onload = () => resolve({ code: xhr.status, text: xhr.responseText });
+		xhr.onerror = () => resolve({ code: 0, text: '' });
+		xhr.send(body);
+	});
+	item.progress = null;
+	if (status.code === 201) {
+		void dropFile(item.id);
+		return (item.state = 'accepted');
+	}
+	if (status.code === 0 || status.code >= 500) return (item.state = 'waiting');
+	try {
+		item.problem = JSON.parse(status.text).error;
+	} catch {
+		item.problem = `The server refused it (${status.code}).`;
+	}
+	return (item.state = 'refused');
 }
 
 /** Drops every account's queue but this one's (signing out takes one's waiting changes along). */

@@ -1,5 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { api, Failure, created } from '$lib/server/api';
+import { api, Failure } from '$lib/server/api';
+import { requireUser } from '$lib/server/guard';
+import { createOnce } from '$lib/server/web/idempotency';
 import { editBuild, readBuild } from '$lib/server/sheet/access';
 import { addPhoto, listPhotos, PHOTO_MAX_BYTES } from '$lib/server/sheet/photos';
 import type { RequestHandler } from './$types';
@@ -34,9 +36,10 @@ export const POST: RequestHandler = api(async (event) => {
 	if (!(file instanceof File) || file.size === 0)
 		throw new Failure(422, 'Choose a photo to upload.', [{ path: 'file', message: 'Needed.' }]);
 	const setupId = Number(fd.get('setupId')) || null;
-	const photo = await addPhoto(build.id, new Uint8Array(await file.arrayBuffer()), {
-		caption: String(fd.get('caption') ?? ''),
-		setupId
-	});
-	return created(view(photo));
+	const caption = String(fd.get('caption') ?? '');
+	// A photo kept offline is sent with a key: sent again after a lost answer, it is stored once.
+	const sent = { caption, setupId, name: file.name, size: file.size };
+	return createOnce(event.request, requireUser(event).id, sent, async () =>
+		view(await addPhoto(build.id, new Uint8Array(await file.arrayBuffer()), { caption, setupId }))
+	);
 });
