@@ -7,6 +7,8 @@ declare global {
 			user: CurrentUser | null;
 			/** Markup put into the page's HTML after rendering (web/html-slots.ts), kept out of its data. */
 			htmlSlots?: Record<string, string>;
+			/** The locale this request's numbers and dates are written in (web/locale.ts). */
+			locale?: string;
 		}
 		interface Error {
 			message: string;

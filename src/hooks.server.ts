@@ -1,3 +1,4 @@
+import { readerLocale } from '$lib/server/web/locale';
 import { themeAttribute } from '$lib/server/web/theme';
 import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
@@ -40,6 +41,7 @@ export const handle = sequence(
 	replicaReads,
 	authHandle,
 	currentUser,
+	readerLocale,
 	changesReadPrimary,
 	publicCache,
 	themeAttribute,

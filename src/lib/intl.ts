@@ -1,12 +1,44 @@
-// Numbers as en-GB writes them, without Intl where a page shows many at start-up: the first Intl
-// format a page makes loads the browser's locale data, which costs a slowed phone 130–170 ms of
-// main thread before it can answer a tap (measured with tests/perf/page-weight.ts). The output
-// matches Intl.NumberFormat('en-GB') exactly (tests/unit/intl.test.ts checks it against Intl).
+// Numbers and dates in the reader's locale. A member's pages follow their browser's languages
+// (Accept-Language, `web/locale.ts`); public pages, which caches share between readers, are
+// written as en-GB. en-GB is written here without Intl: the first Intl format a page makes loads
+// the browser's locale data, which costs a slowed phone 130–170 ms of main thread before it can
+// answer a tap (measured with tests/perf/page-weight.ts), so only readers of another locale pay
+// it. The en-GB output matches Intl.NumberFormat('en-GB') exactly (tests/unit/intl.test.ts).
 
-/** `x` with `digits` decimals and a comma between thousands, as en-GB writes it. */
+let localeOf: () => string = () => 'en-GB';
+
+/** Where the locale comes from: the request on the server, the page's data in the browser. */
+export function readLocaleFrom(source: () => string): void {
+	localeOf = source;
+}
+
+const EN_GB = 'en-GB';
+const formats = new Map<string, Intl.NumberFormat>();
+function numberFormat(locale: string, digits: number, grouping: boolean): Intl.NumberFormat {
+	const key = `${locale}|${digits}|${grouping}`;
+	let f = formats.get(key);
+	if (!f) {
+		f = new Intl.NumberFormat(locale, {
+			minimumFractionDigits: digits,
+			maximumFractionDigits: digits,
+			useGrouping: grouping
+		});
+		formats.set(key, f);
+	}
+	return f;
+}
+
+/** `x` with `digits` decimals, no grouping: the reader's decimal mark ("70.0", "70,0"). */
+export function fixed(x: number, digits = 0): string {
+	const locale = localeOf();
+	return locale === EN_GB ? x.toFixed(digits) : numberFormat(locale, digits, false).format(x);
+}
+
+/** `x` with `digits` decimals and thousands grouped, as the reader's locale writes it. */
 export function grouped(x: number, digits = 0): string {
-	const fixed = Math.abs(x).toFixed(digits);
-	const [whole, frac] = fixed.split('.');
+	const locale = localeOf();
+	if (locale !== EN_GB) return numberFormat(locale, digits, true).format(x);
+	const [whole, frac] = Math.abs(x).toFixed(digits).split('.');
 	const body = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',') + (frac ? `.${frac}` : '');
 	// A negative value keeps its sign even when it rounds to zero ("-0"), as Intl's does.
 	return x < 0 || Object.is(x, -0) ? `-${body}` : body;
@@ -25,11 +57,12 @@ const SYMBOL: Record<string, string> = {
 	AUD: 'A$'
 };
 
-/** Money in minor units as en-GB writes it ("€129.90"); other currencies through Intl. */
+/** Money in minor units as the reader's locale writes it ("€129.90", "129,90 €"). */
 export function money(minor: number, currency: string): string {
-	const symbol = SYMBOL[currency];
+	const locale = localeOf();
+	const symbol = locale === EN_GB ? SYMBOL[currency] : undefined;
 	if (symbol === undefined)
-		return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 100);
+		return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(minor / 100);
 	const text = grouped(minor / 100, 2);
 	return text.startsWith('-') ? `-${symbol}${text.slice(1)}` : `${symbol}${text}`;
 }
@@ -57,5 +90,8 @@ const two = (n: number) => String(n).padStart(2, '0');
  */
 export function whenShort(iso: string): string {
 	const d = new Date(iso);
+	const locale = localeOf();
+	if (locale !== EN_GB)
+		return new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(d);
 	return `${d.getDate()} ${MONTHS[d.getMonth()]} ${d.getFullYear()}, ${two(d.getHours())}:${two(d.getMinutes())}`;
 }

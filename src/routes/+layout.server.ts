@@ -10,6 +10,7 @@ export const load: LayoutServerLoad = async ({ locals }) => {
 		user,
 		suspension: user?.suspension ?? null,
 		outbox: outboxDir() !== null,
+		locale: locals.locale ?? 'en-GB',
 		shopDesk
 	};
 };

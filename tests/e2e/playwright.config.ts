@@ -13,6 +13,8 @@ export default defineConfig({
 	reporter: [['list'], ['json', { outputFile: process.env.E2E_JSON ?? '../../.data/e2e.json' }]],
 	use: {
 		baseURL,
+		// The browser tests read as an en-GB reader; the locale tests set their own.
+		locale: 'en-GB',
 		trace: 'on-first-retry',
 		launchOptions: {
 			// Debian's Chromium, never a downloaded browser.

@@ -54,6 +54,13 @@ test('the bench offers "Add a run" and "Next setup" on each card', async ({ page
 	await expect(
 		page.getByRole('link', { name: 'Next setup of Bench card fixture' })
 	).toHaveAttribute('href', `/builds/${build.id}/setups/new`);
+
+	// "Next setup" starts from the last one and asks first what changed.
+	await page.getByRole('link', { name: 'Next setup of Bench card fixture' }).click();
+	await page.waitForURL(/\/setups\/new$/);
+	await expect(page.getByLabel(/^What changed/)).toBeFocused();
+	await expect(page.getByLabel(/^What changed/)).toHaveValue('');
+	await expect(page.getByLabel(/^Main jet/)).toHaveValue('92');
 });
 
 test('a save that meets no signal says so, keeps what was typed and can be pressed again', async ({

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { grouped, money, whenShort } from '../../src/lib/intl';
+import { fixed, grouped, money, readLocaleFrom, whenShort } from '../../src/lib/intl';
 import { CURRENCIES } from '../../src/lib/sheet/fields';
 
 // The reference is the platform's own ICU/CLDR formatting (ECMA-402 Intl.NumberFormat, en-GB).
@@ -39,5 +39,44 @@ describe('en-GB numbers without Intl', () => {
 				const d = new Date(2026, m, day, h, min);
 				expect(whenShort(d.toISOString())).toBe(f.format(d));
 			}
+	});
+});
+
+// Another reader's locale: the reference is Intl (ECMA-402 with the platform's CLDR data).
+describe('numbers, money and dates in another locale', () => {
+	const asGerman = () => readLocaleFrom(() => 'de-DE');
+	const back = () => readLocaleFrom(() => 'en-GB');
+
+	it('writes the decimal mark and grouping of de-DE as Intl does', () => {
+		asGerman();
+		try {
+			expect(fixed(70, 1)).toBe('70,0');
+			expect(fixed(1234.5, 1)).toBe('1234,5'); // no grouping in a fixed figure
+			expect(grouped(1234567.5, 1)).toBe(
+				new Intl.NumberFormat('de-DE', {
+					minimumFractionDigits: 1,
+					maximumFractionDigits: 1
+				}).format(1234567.5)
+			);
+			expect(grouped(1234567.5, 1)).toBe('1.234.567,5');
+			expect(money(12990, 'EUR')).toBe(
+				new Intl.NumberFormat('de-DE', { style: 'currency', currency: 'EUR' }).format(129.9)
+			);
+			const at = '2026-09-03T07:05:00Z';
+			expect(whenShort(at)).toBe(
+				new Intl.DateTimeFormat('de-DE', { dateStyle: 'medium', timeStyle: 'short' }).format(
+					new Date(at)
+				)
+			);
+		} finally {
+			back();
+		}
+	});
+
+	it('keeps en-GB as it was (no Intl on the fast path)', () => {
+		back();
+		expect(fixed(70, 1)).toBe('70.0');
+		expect(grouped(1234567.5, 1)).toBe('1,234,567.5');
+		expect(money(12990, 'EUR')).toBe('€129.90');
 	});
 });

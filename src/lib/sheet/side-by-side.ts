@@ -1,5 +1,6 @@
 // Side by side: every field of 2–4 setups in aligned rows, in the reader's units, with the rows that
 // differ marked. Pure, so the page and its tests build the same rows.
+import { fixed } from '../intl';
 import { deriveSetup } from './derive';
 import { BUILD_FIELDS, type Field } from './fields';
 import { formatField } from './format';
@@ -39,7 +40,7 @@ export const BUILD_SHOWN = [
 	'brakesUpgraded'
 ];
 const num = (v: number | null, places: number, unit = '') =>
-	v === null ? '—' : `${v.toFixed(places)}${unit ? ` ${unit}` : ''}`;
+	v === null ? '—' : `${fixed(v, places)}${unit ? ` ${unit}` : ''}`;
 
 function row(label: string, values: string[]): Row {
 	return { label, values, differs: values.some((v) => v !== values[0]) };

@@ -1,4 +1,5 @@
 // Canonical units in the database (mm, cc, km/h, m, °C, kg, kPa) and the reader's units on screen.
+import { fixed } from '../intl';
 import * as t from '../tuning';
 
 export type Units = 'metric' | 'imperial';
@@ -68,5 +69,5 @@ export function show(
 	places?: number
 ): string {
 	if (v === null || v === undefined || !Number.isFinite(v)) return '—';
-	return `${toShown(v, dim, units).toFixed(places ?? PLACES[dim][units])} ${UNIT[dim][units]}`;
+	return `${fixed(toShown(v, dim, units), places ?? PLACES[dim][units])} ${UNIT[dim][units]}`;
 }

@@ -1,3 +1,4 @@
+import { fixed } from '../intl';
 import type { SpeedWarning } from '../tuning';
 
 export type Units = 'metric' | 'imperial';
@@ -18,8 +19,8 @@ export type ResultRow = {
 
 /** A row's value as printed: fixed decimals, a real minus sign, and a plus on a positive change. */
 export function formatResult(r: ResultRow): string {
-	const text = Math.abs(r.value).toFixed(r.decimals);
-	const zero = Number(text) === 0;
+	const zero = Number(Math.abs(r.value).toFixed(r.decimals)) === 0;
+	const text = fixed(Math.abs(r.value), r.decimals);
 	if (r.value < 0 && !zero) return `\u2212${text}`;
 	return r.signed && !zero ? `+${text}` : text;
 }
