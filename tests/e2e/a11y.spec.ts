@@ -4,7 +4,9 @@ import { publishedBuild } from '../support/moderation-fixtures';
 import { makeUser, open, signInWithPassword } from './support';
 
 // Both themes on the main pages, read by axe-core (WCAG 2.x A and AA rules): nothing serious or
-// critical, contrast included. The dark theme is reached as a device that prefers it would.
+// critical, contrast included. The dark theme is reached as a device that prefers it would; each
+// page is opened once and read in both.
+test.slow(); // axe reads each page whole, twice
 
 async function problems(page: Page) {
 	const { violations } = await new AxeBuilder({ page })
@@ -21,57 +23,55 @@ async function problems(page: Page) {
 		);
 }
 
-for (const scheme of ['light', 'dark'] as const) {
-	test.describe(`${scheme} pages`, () => {
-		test.use({ colorScheme: scheme });
-		test.slow(); // axe reads each page whole
+const ground = (page: Page) =>
+	page.evaluate(() => getComputedStyle(document.documentElement).backgroundColor);
 
-		test('the page ground follows the device', async ({ page }) => {
-			await open(page, '/');
-			const ground = await page.evaluate(
-				() => getComputedStyle(document.documentElement).backgroundColor
-			);
-			// --sl-paper in app.css
-			expect(ground).toBe(scheme === 'dark' ? 'rgb(28, 27, 25)' : 'rgb(246, 241, 231)');
-		});
-
-		test('the public pages have no serious accessibility problems', async ({ page }) => {
-			const me = await makeUser();
-			const { build } = await publishedBuild(me.id, `Axe ${scheme} fixture`);
-			for (const url of [
-				'/',
-				'/builds',
-				`/builds/${build.id}`,
-				'/close',
-				'/speed-map',
-				'/change-effects',
-				'/slide-rule',
-				'/slide-rule/retune',
-				'/shops',
-				'/signin'
-			]) {
-				await open(page, url);
-				expect(await problems(page), url).toEqual([]);
-			}
-		});
-
-		test('a member’s pages have no serious accessibility problems', async ({ page }) => {
-			const me = await makeUser({ password: 'Axe-member-2026' });
-			const { build, setupId } = await publishedBuild(me.id, `Axe member ${scheme} fixture`);
-			await signInWithPassword(page, me.email, 'Axe-member-2026', '/bench');
-			await page.waitForURL(/\/bench$/);
-			for (const url of [
-				'/bench',
-				`/builds/${build.id}/edit`,
-				`/builds/${build.id}/setups/${setupId}/runs/new`,
-				'/profile'
-			]) {
-				await open(page, url);
-				expect(await problems(page), url).toEqual([]);
-			}
-		});
-	});
+/** Each page in the light theme, then the dark, as the device asks. */
+async function bothThemes(page: Page, urls: string[]) {
+	for (const url of urls) {
+		await page.emulateMedia({ colorScheme: 'light' });
+		await open(page, url);
+		expect(await ground(page)).toBe('rgb(246, 241, 231)'); // --sl-paper, light (app.css)
+		expect(await problems(page), `${url}, light`).toEqual([]);
+		await page.emulateMedia({ colorScheme: 'dark' });
+		expect(await ground(page)).toBe('rgb(28, 27, 25)'); // --sl-paper, dark
+		expect(await problems(page), `${url}, dark`).toEqual([]);
+	}
 }
+
+test('the public pages have no serious accessibility problems in either theme', async ({
+	page
+}) => {
+	const me = await makeUser();
+	const { build } = await publishedBuild(me.id, 'Axe fixture');
+	await bothThemes(page, [
+		'/',
+		'/builds',
+		`/builds/${build.id}`,
+		'/close',
+		'/speed-map',
+		'/change-effects',
+		'/slide-rule',
+		'/slide-rule/retune',
+		'/shops',
+		'/signin'
+	]);
+});
+
+test('a member’s pages have no serious accessibility problems in either theme', async ({
+	page
+}) => {
+	const me = await makeUser({ password: 'Axe-member-2026' });
+	const { build, setupId } = await publishedBuild(me.id, 'Axe member fixture');
+	await signInWithPassword(page, me.email, 'Axe-member-2026', '/bench');
+	await page.waitForURL(/\/bench$/);
+	await bothThemes(page, [
+		'/bench',
+		`/builds/${build.id}/edit`,
+		`/builds/${build.id}/setups/${setupId}/runs/new`,
+		'/profile'
+	]);
+});
 
 test('a member’s own choice of dark pages holds on a device that prefers light', async ({
 	page
@@ -83,11 +83,8 @@ test('a member’s own choice of dark pages holds on a device that prefers light
 	await page.getByRole('radio', { name: /^Dark/ }).check();
 	await page.getByRole('button', { name: /^Save/ }).first().click();
 	await expect(page.getByText('Saved.')).toBeVisible();
+	await page.emulateMedia({ colorScheme: 'light' });
 	await open(page, '/bench');
 	await expect(page.locator('html')).toHaveAttribute('data-theme', 'dark');
-	const ground = await page.evaluate(
-		() => getComputedStyle(document.documentElement).backgroundColor
-	);
-	expect(ground).toBe('rgb(28, 27, 25)'); // --sl-paper, dark
-	expect(await problems(page)).toEqual([]);
+	expect(await ground(page)).toBe('rgb(28, 27, 25)');
 });
