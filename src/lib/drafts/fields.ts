@@ -41,8 +41,10 @@ export function putValues(form: HTMLFormElement, values: FieldValue[]): void {
 		const v = byName.get(el.name)?.[n];
 		if (!v) continue;
 		if (isBox(el)) {
-			if ((el as HTMLInputElement).checked === v.value) continue;
-			(el as HTMLInputElement).checked = v.value === true;
+			// A draft says true; a posted form (a change put back from the send queue) says "on".
+			const checked = v.value === true || v.value === 'on';
+			if ((el as HTMLInputElement).checked === checked) continue;
+			(el as HTMLInputElement).checked = checked;
 		} else {
 			if (el.value === v.value) continue;
 			el.value = String(v.value);
