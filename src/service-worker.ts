@@ -19,15 +19,17 @@ sw.addEventListener('install', (event) => {
 	event.waitUntil(sw.skipWaiting());
 });
 
+// A new version of the app: the old one's files go, and so do the pages kept with it (they name
+// the old files, which the server no longer has either).
 sw.addEventListener('activate', (event) => {
 	event.waitUntil(
 		caches
 			.keys()
-			.then((keys) =>
-				Promise.all(
-					keys.filter((k) => k.startsWith('shell-') && k !== SHELL).map((k) => caches.delete(k))
-				)
-			)
+			.then(async (keys) => {
+				const old = keys.filter((k) => k.startsWith('shell-') && k !== SHELL);
+				if (old.length) await caches.delete(KEPT_PAGES_CACHE);
+				await Promise.all(old.map((k) => caches.delete(k)));
+			})
 			.then(() => sw.clients.claim())
 	);
 });
