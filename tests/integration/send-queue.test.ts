@@ -2,11 +2,13 @@ import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import { POST as photoPost } from '../../src/routes/api/builds/[id=id]/photos/+server';
 import { listPhotos } from '../../src/lib/server/sheet/photos';
+import { speedMap } from '../../src/lib/server/stats/speed-map';
+import { speedMapQuerySchema } from '../../src/lib/schemas/stats';
 import * as runsNew from '../../src/routes/builds/[id=id]/setups/[setupId=id]/runs/new/+page.server';
 import * as setupEdit from '../../src/routes/builds/[id=id]/setups/[setupId=id]/edit/+page.server';
 import * as runs from '../../src/lib/server/sheet/runs';
 import * as setups from '../../src/lib/server/sheet/setups';
-import { saveSetup } from '../../src/lib/server/sheet/service';
+import { saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { toForm } from '../../src/lib/sheet/schema';
 import { RUN_FIELDS } from '../../src/lib/sheet/run-fields';
 import { SETUP_FIELDS } from '../../src/lib/sheet/setup-fields';
@@ -147,6 +149,20 @@ describe('a run logged at the track with just its speed, method and date', () =>
 		const setup = (await setups.read(build.id, setupId))!;
 		expect(Number(setup.bestRunKmh)).toBe(72.3);
 		expect(setup.bestRunElevationM).toBeNull();
+	});
+
+	it('still shows on a filtered speed map while its place is not recorded', async () => {
+		const me = await makeUser();
+		const { build, setupId } = await publishedBuild(me.id, 'No place yet fixture');
+		await saveRun(build.id, setupId, { runOn: '2026-06-15', speed: 81.4, method: 'radar' });
+		const shown = async (q: Record<string, unknown>) =>
+			(await speedMap(speedMapQuerySchema.parse({ x: 'displacement', ...q }))).points.some(
+				(p) => p.buildId === build.id
+			);
+		// Narrowed by method: the run counts, though where it was made is not recorded yet.
+		expect(await shown({ method: 'radar' })).toBe(true);
+		// Asked for closed courses only, it does not.
+		expect(await shown({ method: 'radar', closed: '1' })).toBe(false);
 	});
 });
 

@@ -39,14 +39,18 @@ export function dropDraft(key: string): void {
 	storage()?.removeItem(key);
 }
 
-/** Drops every draft that is not the given account's: called on each page, so signing out (or in
- * as someone else) leaves no one's unsent words behind on a shared phone. */
-export function dropDraftsNotOf(owner: string | null): void {
+/** Drops every key under `prefix` that is not the given account's (`prefix + owner`, then `:` or
+ * nothing): called on each page, so signing out (or in as someone else) leaves no one's unsent
+ * words behind on a shared phone. */
+export function dropStoredNotOf(prefix: string, owner: string | null): void {
 	const s = storage();
 	if (!s) return;
-	const mine = owner ? draftKey(owner, '') : null;
+	const mine = (k: string) =>
+		owner !== null && (k === prefix + owner || k.startsWith(`${prefix}${owner}:`));
 	for (let i = s.length - 1; i >= 0; i--) {
 		const k = s.key(i);
-		if (k?.startsWith(PREFIX) && (!mine || !k.startsWith(mine))) s.removeItem(k);
+		if (k?.startsWith(prefix) && !mine(k)) s.removeItem(k);
 	}
 }
+
+export const dropDraftsNotOf = (owner: string | null) => dropStoredNotOf(PREFIX, owner);

@@ -5,7 +5,7 @@
 // and is shown beside the server's copy; nothing is overwritten until the member chooses.
 import { deserialize } from '$app/forms';
 import { invalidateAll } from '$app/navigation';
-import { draftKey, writeDraft } from '../drafts/store';
+import { draftKey, dropStoredNotOf, writeDraft } from '../drafts/store';
 import { dropFile, keptFileIds, readFile } from './files';
 
 export type ServerCopy = { values: Record<string, unknown>; version: number };
@@ -254,15 +254,6 @@ async function sendPhoto(item: Waiting): Promise<Waiting['state']> {
 }
 
 /** Drops every account's queue but this one's (signing out takes one's waiting changes along). */
-export function dropQueuesNotOf(owner: string | null) {
-	try {
-		for (let i = localStorage.length - 1; i >= 0; i--) {
-			const k = localStorage.key(i);
-			if (k?.startsWith(PREFIX) && (!owner || k !== keyOf(owner))) localStorage.removeItem(k);
-		}
-	} catch {
-		// storage off: nothing was kept
-	}
-}
+export const dropQueuesNotOf = (owner: string | null) => dropStoredNotOf(PREFIX, owner);
 
 export const sendQueue = new SendQueue();
