@@ -15,6 +15,7 @@ import { watchReplica } from '$lib/server/db/replica-watch';
 import { DB_UNAVAILABLE, isDatabaseDown } from '$lib/server/db/unavailable';
 import { originCheck, pinHost } from '$lib/server/web/origin-check';
 import { htmlSlots } from '$lib/server/web/html-slots';
+import { keptAnswers } from '$lib/server/web/kept-answers';
 import { publicCache } from '$lib/server/web/public-cache';
 import { changesReadPrimary, replicaReads } from '$lib/server/web/replica-reads';
 import { withSecurityHeaders } from '$lib/server/web/security-headers';
@@ -39,6 +40,7 @@ export const handle = sequence(
 	pinHost,
 	clientAddress,
 	replicaReads,
+	keptAnswers,
 	authHandle,
 	currentUser,
 	readerLocale,

@@ -9,7 +9,7 @@ import { startApp } from '../security/support/app';
 import { benchClose } from './close-builds';
 import { benchCommunity } from './community';
 import { benchEdge } from './edge';
-import { benchHttp, refusals } from './http';
+import { benchHttp, refusals, type HttpFigure } from './http';
 import { benchPageWeight } from './page-weight';
 import { mulberry32, seed } from './seed';
 
@@ -49,7 +49,8 @@ if (process.env.PERF_HTTP !== '0') {
 			warmupSeconds: quick ? 0 : 3,
 			connections: quick ? 4 : 50
 		});
-		pages = await benchPageWeight(app.origin, http.pages, quick ? 1 : 3);
+		// Five openings a page: one opening to the next varies by a factor of two on a shared machine.
+		pages = await benchPageWeight(app.origin, http.pages, quick ? 1 : 5);
 	} finally {
 		await app.stop();
 	}
@@ -132,14 +133,10 @@ console.table({
 console.log(
 	`builds ${N} (setups ${seeded.setups}, parts ${seeded.parts}), naive/ours ${result.ratioNaiveOverOurs}×, same SQL without the band/ours ${result.ratioSameSqlOverOurs}×, vocabulary loaded in ${result.vocabularyLoadMs} ms, seeded in ${result.seedSeconds} s (summaries filled in ${seeded.summaries.filledMs} ms: ${seeded.summaries.binRows} speed-map bins, ${seeded.summaries.countRows} change-effect counts)`
 );
-if (http)
-	console.log(
-		`\nHTTP: ${http.connections} connections, ${http.seconds} s a route, ${http.rounds} round(s), medians; static asset ${http.staticAsset} at ${http.staticReqPerS} req/s`
-	);
-if (http)
+const httpTable = (figures: HttpFigure[]) =>
 	console.table(
 		Object.fromEntries(
-			http.routes.map((r) => [
+			figures.map((r) => [
 				r.route,
 				{
 					'req/s': r.reqPerS,
@@ -153,6 +150,14 @@ if (http)
 			])
 		)
 	);
+if (http) {
+	console.log(
+		`\nHTTP: ${http.connections} connections, ${http.seconds} s a route, ${http.rounds} round(s), medians; static asset ${http.staticAsset} at ${http.staticReqPerS} req/s`
+	);
+	httpTable(http.routes);
+	console.log('\nThe read routes made afresh (no kept answers):');
+	httpTable(http.madeAfresh);
+}
 for (const [status, body] of refusals) console.log(`write refused with ${status}: ${body}`);
 if (pages.length) console.log('\nPages on a phone (390 px, CPU 4× slower):');
 if (pages.length)

@@ -111,7 +111,12 @@ async function load(
 		duration: seconds,
 		headers: { 'accept-encoding': 'br, gzip' }
 	};
-	if (!r.write) return autocannon({ ...common, requests: [{ method: 'GET', path: r.path }] });
+	if (!r.write)
+		return autocannon({
+			...common,
+			headers: { ...common.headers, ...r.headers },
+			requests: [{ method: 'GET', path: r.path }]
+		});
 	// Setups not in flight, each with the version its last answer gave. autocannon asks for a
 	// connection's next request only after the answer to the last (no pipelining), but clears the
 	// request's context each time round a one-request list: so the state lives here, and a setup is
@@ -171,6 +176,8 @@ async function syncVersions(p: { own: { id: number }[] }) {
 	return new Map(rows.map((r) => [r.id, r.version]));
 }
 
+const NO_CACHE = { 'cache-control': 'no-cache' };
+
 export async function benchHttp(
 	app: App,
 	opts: { rounds: number; seconds: number; warmupSeconds: number; connections: number }
@@ -179,6 +186,7 @@ export async function benchHttp(
 		const p = await prepare(app, opts.connections);
 		const list = routes(p);
 		const runs = new Map<string, { rate: number; ratio: number; r: Result }[]>();
+		const afresh = new Map<string, { rate: number; ratio: number; r: Result }[]>();
 		const statics: number[] = [];
 		for (let round = 0; round < opts.rounds; round++) {
 			const asset: Route = { name: 'static asset', path: p.asset };
@@ -205,10 +213,25 @@ export async function benchHttp(
 					r: got
 				};
 				runs.set(r.name, [...(runs.get(r.name) ?? []), entry]);
+				if (r.write) continue;
+				// The same route made afresh on every request (a client asking no-cache is never
+				// served a kept answer): what a page costs when what it shows keeps changing.
+				const fresh = await load(
+					app,
+					{ ...r, headers: NO_CACHE },
+					p,
+					opts.connections,
+					opts.seconds
+				);
+				const freshEntry = {
+					rate: fresh.requests.average,
+					ratio: fresh.requests.average / st.requests.average,
+					r: fresh
+				};
+				afresh.set(r.name, [...(afresh.get(r.name) ?? []), freshEntry]);
 			}
 		}
-		const figures: HttpFigure[] = list.map((r) => {
-			const xs = runs.get(r.name)!;
+		const figure = (r: Route, xs: { rate: number; ratio: number; r: Result }[]): HttpFigure => {
 			return {
 				route: r.name,
 				reqPerS: Number(median(xs.map((x) => x.rate)).toFixed(1)),
@@ -219,7 +242,9 @@ export async function benchHttp(
 				errors: xs.reduce((a, x) => a + x.r.errors + x.r.timeouts, 0),
 				non2xx: xs.reduce((a, x) => a + x.r.non2xx, 0)
 			};
-		});
+		};
+		const figures = list.map((r) => figure(r, runs.get(r.name)!));
+		const madeAfresh = list.filter((r) => !r.write).map((r) => figure(r, afresh.get(r.name)!));
 		return {
 			connections: opts.connections,
 			seconds: opts.seconds,
@@ -227,6 +252,8 @@ export async function benchHttp(
 			staticAsset: p.asset,
 			staticReqPerS: Number(median(statics).toFixed(1)),
 			routes: figures,
+			/** The read routes again, each request asking for a fresh answer (no kept answers). */
+			madeAfresh,
 			/** The HTML pages among the routes, for the page-weight stage. */
 			pages: list.filter((r) => !r.write && !r.path.startsWith('/api/'))
 		};

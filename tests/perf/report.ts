@@ -40,10 +40,22 @@ if (run.http) {
 		),
 		''
 	);
+	if (run.http.madeAfresh)
+		out.push(
+			'Made afresh (the client sends Cache-Control: no-cache, so no kept answer is served):',
+			'',
+			'| route | req/s | of static | p50 ms | p99 ms | max ms | errors | non-2xx |',
+			'| --- | --- | --- | --- | --- | --- | --- | --- |',
+			...run.http.madeAfresh.map(
+				(r: Record<string, number | string>) =>
+					`| ${r.route} | ${n(r.reqPerS as number)} | ${((r.ofStatic as number) * 100).toFixed(1)} % | ${n(r.p50Ms as number)} | ${n(r.p99Ms as number)} | ${n(r.maxMs as number)} | ${r.errors} | ${r.non2xx} |`
+			),
+			''
+		);
 }
 if (run.pageWeight?.length) {
 	out.push(
-		'| page | JS, kB compressed | total blocking time, ms (median) | the three openings |',
+		'| page | JS, kB compressed | total blocking time, ms (median) | each opening |',
 		'| --- | --- | --- | --- |',
 		...run.pageWeight.map(
 			(p: { page: string; jsKb: number; tbtMs: number; tbtRunsMs: number[] }) =>

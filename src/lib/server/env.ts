@@ -58,7 +58,9 @@ const schema = z.object({
 		.transform((v) => v === '1'),
 	AUTH_SECRET: z.string().optional(),
 	/** How long an edge cache (nginx, a CDN) may keep a public answer (s-maxage); 0: not at all. */
-	EDGE_CACHE_SECONDS: z.coerce.number().int().nonnegative().default(0)
+	EDGE_CACHE_SECONDS: z.coerce.number().int().nonnegative().default(0),
+	/** Memory each process may give to whole anonymous answers (web/kept-answers.ts); 0: none. */
+	KEPT_ANSWERS_MB: z.coerce.number().nonnegative().default(64)
 });
 
 export type Env = z.infer<typeof schema>;

@@ -3,6 +3,7 @@ import mariadb from 'mariadb';
 import { QueryTypes, Sequelize, Transaction } from 'sequelize';
 import { env } from '../env';
 import { currentTransaction, namespace } from './context';
+import { BUMP_PUBLIC_VERSION, movesPublicPages } from './public-writes';
 import { noteWrite, pauseReplica, READS, replicaUsable } from './replica';
 import { isDatabaseDown, rethrowUnavailable } from './unavailable';
 
@@ -68,15 +69,53 @@ export const replicated = (): boolean => replicaAddress() !== null;
 function reportOutages(s: Sequelize, withReplica: boolean) {
 	const query = s.query.bind(s) as (sql: unknown, o?: QueryOptions) => Promise<unknown>;
 	const transaction = s.transaction.bind(s) as (...a: unknown[]) => Promise<unknown>;
+	const run = withReplica
+		? (sql: unknown, o?: QueryOptions) => routed(query, sql, o)
+		: (sql: unknown, o?: QueryOptions) => query(sql, o).catch(rethrowUnavailable);
+	// Never fails the change it follows (that is committed): at worst kept answers live out their
+	// age. Before its migration (a new database being migrated) there is nothing to move.
+	const bump = () =>
+		query(BUMP_PUBLIC_VERSION, { transaction: null }).catch((e: unknown) => {
+			if (!/ER_NO_SUCH_TABLE/.test(String((e as { original?: { code?: string } }).original?.code)))
+				console.error('[public version]', e);
+		});
 	Object.assign(s, {
-		query: withReplica
-			? (sql: unknown, o?: QueryOptions) => routed(query, sql, o)
-			: (sql: unknown, o?: QueryOptions) => query(sql, o).catch(rethrowUnavailable),
+		query: async (sql: unknown, o?: QueryOptions) => {
+			const r = await run(sql, o);
+			if (o?.type !== QueryTypes.SELECT && movesPublicPages(sqlText(sql)))
+				await afterPublicChange(o, bump);
+			return r;
+		},
 		transaction: (...a: unknown[]) =>
 			transaction(...a).then((r) => {
 				noteWrite();
 				return r;
 			}, rethrowUnavailable)
+	});
+}
+
+const sqlText = (sql: unknown): string =>
+	typeof sql === 'string' ? sql : ((sql as { query?: string })?.query ?? '');
+
+const bumping = new WeakSet<Transaction>();
+
+/**
+ * A statement that may change a page moves `public_version` on once its change is committed:
+ * at once outside a transaction, after the commit inside one (once per transaction). Moving it
+ * after the commit, not inside the transaction, keeps writers from queueing on that one row; an
+ * answer kept in between is at most as old as a read made just before the commit.
+ */
+async function afterPublicChange(o: QueryOptions | undefined, bump: () => Promise<unknown>) {
+	const t = (o?.transaction !== undefined ? o.transaction : currentTransaction()) as
+		Transaction | null | undefined;
+	if (!t) {
+		await bump();
+		return;
+	}
+	if (bumping.has(t)) return;
+	bumping.add(t);
+	t.afterCommit(async () => {
+		await bump();
 	});
 }
 
@@ -103,7 +142,7 @@ async function routed(
 	const isRead = o.type === QueryTypes.SELECT && !o.useMaster && !inTransaction;
 	if (!isRead) {
 		const r = await query(sql, o).catch(rethrowUnavailable);
-		const text = typeof sql === 'string' ? sql : ((sql as { query?: string })?.query ?? '');
+		const text = sqlText(sql);
 		if (o.type !== QueryTypes.SELECT && !(o.type === QueryTypes.RAW && READS.test(text)))
 			noteWrite();
 		return r;
