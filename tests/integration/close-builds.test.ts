@@ -91,11 +91,7 @@ describe('close builds', () => {
 		expect(nothing.results.every((r) => r.score === 0)).toBe(true);
 	});
 
-	it('makes at most three queries, however many bands it must try and results it gives', async () => {
-		// A threshold no band can reach makes it try every band and both pipe choices: before, one
-		// query each, in sequence (thirteen here), then the ranking and the details.
-		const saved = BAND.minCandidates;
-		BAND.minCandidates = 1_000_000;
+	it('makes one query for the ranking, and one more from a build of its own', async () => {
 		const spy = vi.spyOn(db(), 'query');
 		try {
 			const counts: number[] = [];
@@ -105,25 +101,23 @@ describe('close builds', () => {
 				expect(found.results.length).toBeGreaterThan(0);
 				counts.push(spy.mock.calls.length);
 			}
-			expect(counts).toEqual([2, 2]);
-			// From a build of one's own: its setup is read first, the third query.
+			expect(counts).toEqual([1, 1]);
+			// From a build of one's own: its setup is read first.
 			spy.mockClear();
 			const fromBuild = await searchClose(closeQuerySchema.parse({ build: ids.P }));
 			expect(fromBuild.fromBuild).toBe(ids.P);
 			expect(mine(fromBuild.results).length).toBeGreaterThan(0);
-			expect(spy.mock.calls.length).toBe(3);
+			expect(spy.mock.calls.length).toBe(2);
 		} finally {
-			BAND.minCandidates = saved;
 			spy.mockRestore();
 		}
 	});
 
-	it('ranks over a covering prefilter index, led by displacement or else by carburettor bore', async () => {
-		// The demo data is small, so lower the threshold for this check: every band then holds enough.
-		const saved = BAND.minCandidates;
-		BAND.minCandidates = 1;
-		const spy = vi.spyOn(db(), 'query');
-		const plans: { key: string; Extra: string }[] = [];
+	it('reads a bounded number of covering index entries, nearest the target first', async () => {
+		// Two entries a walk, so the demo data holds more than any walk may read.
+		const saved = BAND.perWalk;
+		BAND.perWalk = 2;
+		const reads: { key: string; rows: number; covering: boolean; query: string }[] = [];
 		try {
 			for (const q of [
 				{ cycle: 'two-stroke', cc: 68, exhaust: 'expansion-chamber', carb: 17, limit: 5 },
@@ -131,27 +125,50 @@ describe('close builds', () => {
 				{ cycle: 'two-stroke', carb: 17, exhaust: 'sport', limit: 5 },
 				{ cycle: 'two-stroke', carb: 17, limit: 5 }
 			] as const) {
-				spy.mockClear();
-				const ranking = await planClose(targetFrom(q), { cycle: 'two-stroke', limit: 5 });
-				spy.mockClear();
-				const [plan] = await db().query<{ key: string; Extra: string }>(`EXPLAIN ${ranking.sql}`, {
-					replacements: ranking.replacements,
+				const plan = await planClose(targetFrom(q), { cycle: 'two-stroke', limit: 5 });
+				const [row] = await db().query<{ ANALYZE: string }>(`ANALYZE FORMAT=JSON ${plan.sql}`, {
+					replacements: plan.replacements,
 					type: QueryTypes.SELECT
 				});
-				plans.push(plan);
+				for (const t of tablesIn(JSON.parse(Object.values(row)[0] as string)))
+					if (t.table_name === 's')
+						reads.push({
+							key: t.key,
+							rows: t.r_rows,
+							covering: t.using_index === true,
+							query: JSON.stringify(q)
+						});
 			}
 		} finally {
-			BAND.minCandidates = saved;
-			spy.mockRestore();
+			BAND.perWalk = saved;
 		}
-		expect(plans.map((p) => p.key)).toEqual([
-			'setups_close_by_exhaust',
-			'setups_close_representative',
+		// Displacement first: each way among the same pipe type, then among all; bore when no
+		// displacement, a pair of walks per pipe type.
+		const keys = [...new Set(reads.map((r) => r.key))].sort();
+		expect(keys).toEqual([
 			'setups_close_by_carb',
-			'setups_close_by_carb'
+			'setups_close_by_exhaust',
+			'setups_close_representative'
 		]);
-		// "Using index": the ranking reads index entries only, never the table rows.
-		for (const p of plans) expect(p.Extra.split('; ')).toContain('Using index');
+		expect(reads.length).toBe(4 + 2 + 8 + 8);
+		for (const r of reads) {
+			expect(r.rows, r.query).toBeLessThanOrEqual(2);
+			// The index entries alone: never the table rows.
+			expect(r.covering, r.query).toBe(true);
+		}
+		expect(reads.some((r) => r.rows === 2)).toBe(true);
+	});
+
+	it('ranks the newest listed setups when neither displacement nor bore is given, and says so', async () => {
+		const found = await searchClose(
+			closeQuerySchema.parse({ cycle: 'four-stroke', exhaust: 'expansion-chamber', elevation: 200 })
+		);
+		expect(found.comparedBy).toBe('newest');
+		expect(found.bandCc).toBeNull();
+		expect(mine(found.results).map((r) => r.buildId)[0]).toBe(ids.P);
+		const byCc = await searchClose(closeQuerySchema.parse({ cycle: 'four-stroke', cc: 68.2 }));
+		expect(byCc.comparedBy).toBe('cc');
+		expect(byCc.bandCc).toBeGreaterThanOrEqual(0.2);
 	});
 
 	it('prices each setup by the parts fitted up to it, never the whole build', async () => {
@@ -188,3 +205,12 @@ describe('close builds', () => {
 		expect(rep.find((r) => r.buildId === b.id)?.partsMinor).toBe(38200);
 	});
 });
+
+type Access = { table_name?: string; key?: string; r_rows?: number; using_index?: boolean };
+/** Every table access in MariaDB's ANALYZE FORMAT=JSON output, however deeply nested. */
+function tablesIn(node: unknown): Required<Access>[] {
+	if (!node || typeof node !== 'object') return [];
+	const here = (node as { table?: Access }).table;
+	const own = here?.table_name ? [here as Required<Access>] : [];
+	return [...own, ...Object.values(node).flatMap((v) => tablesIn(v))];
+}

@@ -144,28 +144,74 @@ describe('builds list and search', () => {
 		expect(mph.builds.every((b) => b.bestSpeedKmh! >= 80.4672)).toBe(true);
 	});
 
-	it('finds the same pages whether it starts from the filter index or walks the order', async () => {
+	it('finds the same pages whether it walks the order or ranges over the filters', async () => {
 		const asks = [
 			{ exhaust: 'expansion-chamber', ccMin: 60, sort: 'fastest' },
 			{ exhaust: 'stock', ccMax: 55, speedMin: 40, sort: 'newest' },
 			{ elevMin: 300, elevMax: 1500, sort: 'cheapest' },
-			{ ccMin: 45, ccMax: 75, cycle: 'two-stroke', sort: 'fastest' }
+			{ ccMin: 45, ccMax: 75, cycle: 'two-stroke', sort: 'fastest' },
+			{ ccMin: 49.5, ccMax: 68.5, speedMin: 60, sort: 'newest' },
+			{ exhaust: 'expansion-chamber', ccMin: 65, ccMax: 75, speedMin: 60, sort: 'fastest' }
 		];
-
+		const saved = LIST_TUNING.walkCap;
 		try {
 			for (const a of asks) {
-				LIST_TUNING.filterIndex = true;
-				const fromSetups = await list({ ...a, limit: 7 });
-				const next1 = await list({ ...a, limit: 7, cursor: fromSetups.next });
-				LIST_TUNING.filterIndex = false; // always walk the order's index
+				LIST_TUNING.walkCap = 0; // always range over the filters
+				const ranged = await list({ ...a, limit: 7 });
+				const next1 = await list({ ...a, limit: 7, cursor: ranged.next });
+				LIST_TUNING.walkCap = 1_000_000; // always walk the order's index
 				const walked = await list({ ...a, limit: 7 });
 				const next2 = await list({ ...a, limit: 7, cursor: walked.next });
-				expect(walked.builds.map((b) => b.id)).toEqual(fromSetups.builds.map((b) => b.id));
-				expect(next2.builds.map((b) => b.id)).toEqual(next1.builds.map((b) => b.id));
+				expect(
+					walked.builds.map((b) => b.id),
+					JSON.stringify(a)
+				).toEqual(ranged.builds.map((b) => b.id));
+				expect(
+					next2.builds.map((b) => b.id),
+					JSON.stringify(a)
+				).toEqual(next1.builds.map((b) => b.id));
 				expect(walked.builds.length).toBeGreaterThan(0);
 			}
 		} finally {
-			LIST_TUNING.filterIndex = true;
+			LIST_TUNING.walkCap = saved;
+		}
+	});
+
+	it('walks at most walkCap entries of the order, then ranges over the filters', async () => {
+		const saved = LIST_TUNING.walkCap;
+		const spy = vi.spyOn(db(), 'query');
+		try {
+			LIST_TUNING.walkCap = 3;
+			// Few builds in the first three of the order pass a narrow band: the range finds them.
+			const q = { ccMin: 49, ccMax: 50, speedMin: 40, sort: 'fastest', limit: 5 } as const;
+			spy.mockClear();
+			const page = await list(q);
+			const sqls = spy.mock.calls.map((c) => String(c[0]));
+			expect(sqls.length).toBe(3); // the walk, the range, the rows' details
+			expect(sqls[0]).toContain('LIMIT :walkCap');
+			expect(sqls[1]).toContain('builds_by_whole_cc');
+			for (const b of page.builds) {
+				expect(b.displacementCc!).toBeGreaterThanOrEqual(49);
+				expect(b.displacementCc!).toBeLessThanOrEqual(50);
+				expect(b.bestSpeedKmh!).toBeGreaterThanOrEqual(40);
+			}
+			// The range reads those whole cc steps and speeds only (MariaDB's own count of rows read).
+			const [plan] = await db().query<{ ANALYZE: string }>(`ANALYZE FORMAT=JSON ${sqls[1]}`, {
+				replacements: (spy.mock.calls[1][1] as { replacements: Record<string, unknown> })
+					.replacements,
+				type: QueryTypes.SELECT
+			});
+			const read = JSON.stringify(JSON.parse(Object.values(plan)[0] as string));
+			const [{ n }] = await db().query<{ n: number }>(
+				`SELECT COUNT(*) AS n FROM builds WHERE publication = 'published' AND moderation = 'visible'
+					AND rep_cc >= 49 AND rep_cc < 51 AND best_speed_kmh >= 40`,
+				{ type: QueryTypes.SELECT }
+			);
+			const rows = Number(/"r_rows":\s*([\d.]+)/.exec(read)![1]);
+			expect(rows).toBeLessThanOrEqual(Number(n));
+		} finally {
+			LIST_TUNING.walkCap = saved;
+			spy.mockRestore();
 		}
 	});
 
@@ -277,16 +323,20 @@ describe('builds list and search', () => {
 		}
 	});
 
-	it('makes the same number of queries for a page of 5 as for a page of 100', async () => {
+	it('makes at most three queries for a page of 5 or of 100, never one a row', async () => {
 		const spy = vi.spyOn(db(), 'query');
 		try {
-			await list({ exhaust: 'stock', ccMax: 55, limit: 5 });
-			const five = spy.mock.calls.length;
-			spy.mockClear();
-			const page = await list({ exhaust: 'stock', ccMax: 55, limit: 100 });
-			expect(page.builds.length).toBeGreaterThan(5);
-			expect(spy.mock.calls.length).toBe(five);
-			expect(five).toBe(2);
+			const counts: number[] = [];
+			for (const limit of [5, 100]) {
+				spy.mockClear();
+				const page = await list({ exhaust: 'stock', ccMax: 55, limit });
+				expect(page.builds.length).toBeGreaterThan(limit === 5 ? 4 : 5);
+				counts.push(spy.mock.calls.length);
+			}
+			// The walk of the order (and, when it held too few, the range over the filters), then
+			// the rows' details.
+			expect(counts[0]).toBe(2);
+			expect(counts[1]).toBeLessThanOrEqual(3);
 		} finally {
 			spy.mockRestore();
 		}

@@ -24,10 +24,11 @@ export const TERMS = {
 } as const;
 
 /**
- * The prefilter's first band (± cc, or ± mm of carburettor bore when no displacement is given), how
- * often it may double while fewer than `minCandidates` builds fall inside, and then the band is
- * dropped. The band starts narrow because stock engines crowd within a cc or two of 49 cc: ranking a
- * few hundred of them by the other terms gives the same list as ranking tens of thousands, at a
- * fraction of the cost. Half a cc of displacement is worth 0.15 of score, less than one roller step.
+ * How many candidates close builds reads: the setups nearest the target's displacement (or
+ * carburettor bore), `perWalk` each way from it, among those with the target's pipe type and among
+ * all; without either, the `newest` listed setups. Stock engines crowd within a cc or two of 49 cc:
+ * ranking a few hundred of the nearest by the other terms gives the same list as ranking tens of
+ * thousands, and a denser community only narrows the band they come from (half a cc of
+ * displacement is worth 0.15 of score, less than one roller step).
  */
-export const BAND = { initialCc: 0.5, initialCarbMm: 0.5, widenings: 5, minCandidates: 200 };
+export const BAND = { perWalk: 200, newest: 2000 };

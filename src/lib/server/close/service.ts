@@ -84,10 +84,13 @@ export async function targetFromBuild(
 }
 
 /**
- * Plans the ranking of the published setups nearest to `target`: a prefilter on (flag, cycle,
- * displacement band) over a covering index, scored on the stored derived columns. The band is the
- * narrowest that holds enough builds; every candidate band is counted in one query (each count
- * stops at the threshold, so it reads a bounded number of index entries at any data size).
+ * Plans the ranking of the published setups nearest to `target`, reading a bounded number of
+ * index entries at any data size. The candidates are the setups nearest the target's displacement
+ * (or, without one, its carburettor bore): from the target outwards in both directions over a
+ * covering index, `BAND.perWalk` entries each way, once among setups with the target's pipe type
+ * and once among all. They are scored on the stored derived columns and the best `limit` kept. A
+ * denser community gives a narrower band around the target, never a longer read. Without either
+ * to start from, the newest listed setups are ranked (`BAND.newest` of them).
  */
 export async function planClose(
 	target: Target,
@@ -96,13 +99,18 @@ export async function planClose(
 		all?: boolean;
 		limit: number;
 		excludeBuild?: number;
-		/** The benchmark's fair baseline turns the band off: the same scoring over every setup. */
+		/** The benchmark's fair baseline turns the walks off: the same scoring over every setup. */
 		prefilter?: boolean;
 	}
 ) {
 	const flag = opts.all ? 'any_listed' : 'listed';
-	const index = opts.all ? 'setups_close_all' : 'setups_close_representative';
-	const repl: Record<string, unknown> = { cycle: opts.cycle, limit: opts.limit, cap: CAP };
+	const repl: Record<string, unknown> = {
+		cycle: opts.cycle,
+		limit: opts.limit,
+		cap: CAP,
+		walk: BAND.perWalk,
+		newest: BAND.newest
+	};
 	const terms: string[] = [];
 	for (const [key, term, col] of NUMERIC) {
 		const v = target[key];
@@ -119,78 +127,80 @@ export async function planClose(
 	const score = terms.length ? terms.join(' + ') : '0';
 	const exclude = opts.excludeBuild ? 'AND s.build_id <> :exclude' : '';
 	if (opts.excludeBuild) repl.exclude = opts.excludeBuild;
-	// Prefilter: a band on the displacement (or, without one, on the carburettor bore), with the named
-	// pipe type while it alone holds enough builds; the band doubles while too few builds fall inside.
 	const lead =
-		typeof target.cc === 'number' ? 'cc' : typeof target.carb === 'number' ? 'carb' : null;
-	type Plan = { band: number | null; samePipe: boolean; key: number };
-	const indexFor = (p: Plan) =>
-		lead === 'carb' && p.band !== null
-			? opts.all
-				? 'setups_close_all_by_carb'
-				: 'setups_close_by_carb'
-			: p.samePipe
-				? opts.all
-					? 'setups_close_all_by_exhaust'
-					: 'setups_close_by_exhaust'
-				: index;
-	// Each plan's bounds have their own names (:lo3, :pipes3), so all plans fit one statement.
-	const bandSql = (p: Plan) =>
-		p.band === null
-			? p.samePipe
-				? 'AND s.exhaust_type = :v_exhaust'
-				: ''
-			: lead === 'cc'
-				? `${p.samePipe ? 'AND s.exhaust_type = :v_exhaust' : ''} AND s.displacement_cc BETWEEN :lo${p.key} AND :hi${p.key}`
-				: // Pipe types as a list of points, so the bore range applies inside each.
-					`AND s.close_pipe IN (:pipes${p.key}) AND s.carb_bore_mm BETWEEN :lo${p.key} AND :hi${p.key}`;
-	const where = (p: Plan) => `s.${flag} = 1 AND s.engine_cycle = :cycle ${bandSql(p)} ${exclude}`;
-	const centre = lead === 'cc' ? target.cc! : lead === 'carb' ? target.carb! : 0;
-	const plans: Plan[] = [];
-	const first = lead === 'cc' ? BAND.initialCc : BAND.initialCarbMm;
-	const bands: (number | null)[] = lead
-		? [...Array.from({ length: BAND.widenings }, (_, k) => first * 2 ** k), null]
-		: [null];
-	for (const samePipe of target.exhaust ? [true, false] : [false])
-		for (const band of bands) {
-			const p = { band, samePipe, key: plans.length };
-			plans.push(p);
-			repl[`pipes${p.key}`] = samePipe ? [target.exhaust] : PIPES;
-			repl[`lo${p.key}`] = centre - (band ?? 0);
-			repl[`hi${p.key}`] = centre + (band ?? 0);
-		}
-	// The last plan (no band, any pipe) needs no count: it is what is left.
-	const probed = opts.prefilter === false ? [] : plans.slice(0, -1);
-	let plan = plans[plans.length - 1];
-	if (probed.length) {
-		const counts = probed.map(
-			(p) =>
-				`(SELECT COUNT(*) FROM (SELECT 1 FROM setups s FORCE INDEX (${indexFor(p)}) WHERE ${where(p)} LIMIT ${BAND.minCandidates}) x) AS n${p.key}`
-		);
-		const [n] = await db().query<Record<string, number>>(`SELECT ${counts.join(',\n')}`, {
-			replacements: repl,
-			type: QueryTypes.SELECT
-		});
-		plan = probed.find((p) => Number(n[`n${p.key}`]) >= BAND.minCandidates) ?? plan;
-	}
-	// The carburettor-led index carries the pipe type as close_pipe only: read it there, so the scan
-	// stays on the index.
-	const pipeCol = indexFor(plan).includes('carb') ? "NULLIF(s.close_pipe, '')" : 's.exhaust_type';
-	const sql = `SELECT s.id, s.build_id, s.displacement_cc AS cc, ${pipeCol} AS exhaust, s.carb_bore_mm AS carb, s.final_drive_ratio AS fd,
-			s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers, s.sea_level_jet AS jet, s.best_run_elevation_m AS elev,
-			s.best_run_kmh AS best, (${score.replaceAll('PIPE_COL', pipeCol)}) AS score
-		FROM setups s FORCE INDEX (${indexFor(plan)})
-		WHERE ${where(plan)}
-		ORDER BY score, s.id LIMIT :limit`;
-	return {
-		sql,
-		replacements: repl,
-		band: lead === 'cc' ? plan.band : null,
-		samePipe: plan.samePipe
+		opts.prefilter === false
+			? null
+			: typeof target.cc === 'number'
+				? 'cc'
+				: typeof target.carb === 'number'
+					? 'carb'
+					: null;
+	const suffix = opts.all ? '_all' : '';
+	// Each walk reads the columns it scores from its own index entries (never the table rows). The
+	// carburettor-led index carries the pipe type as close_pipe only.
+	const select = (pipeCol: string) =>
+		`SELECT s.id, s.build_id, s.displacement_cc AS cc, ${pipeCol} AS exhaust, s.carb_bore_mm AS carb,
+			s.final_drive_ratio AS fd, s.tyre_circumference_mm AS tyre, s.roller_total_g AS rollers,
+			s.sea_level_jet AS jet, s.best_run_elevation_m AS elev, s.best_run_kmh AS best,
+			(${score.replaceAll('PIPE_COL', pipeCol)}) AS score`;
+	const base = `s.${flag} = 1 AND s.engine_cycle = :cycle ${exclude}`;
+	const walks: string[] = [];
+	/** Entries of `index` where `where` holds, nearest `col` to `centre` first, both ways. */
+	const around = (index: string, where: string, col: string, centre: string, pipeCol: string) => {
+		for (const [cmp, dir] of [
+			['>=', 'ASC'],
+			['<', 'DESC']
+		])
+			walks.push(
+				`(${select(pipeCol)} FROM setups s FORCE INDEX (${index}) WHERE ${base} ${where} AND ${col} ${cmp} ${centre} ORDER BY ${col} ${dir} LIMIT :walk)`
+			);
 	};
+	if (lead === 'cc') {
+		if (target.exhaust)
+			around(
+				`setups_close${suffix}_by_exhaust`,
+				'AND s.exhaust_type = :v_exhaust',
+				's.displacement_cc',
+				':v_cc',
+				's.exhaust_type'
+			);
+		around(
+			`setups_close${opts.all ? '_all' : '_representative'}`,
+			'',
+			's.displacement_cc',
+			':v_cc',
+			's.exhaust_type'
+		);
+	} else if (lead === 'carb') {
+		// The bore index leads with the pipe type: one pair of walks per pipe type (the named one
+		// gets its own walks either way).
+		PIPES.forEach((pipe, k) => {
+			repl[`pipe${k}`] = pipe;
+			around(
+				`setups_close${suffix}_by_carb`,
+				`AND s.close_pipe = :pipe${k}`,
+				's.carb_bore_mm',
+				':v_carb',
+				"NULLIF(s.close_pipe, '')"
+			);
+		});
+	} else if (opts.prefilter === false) {
+		walks.push(`(${select('s.exhaust_type')} FROM setups s WHERE ${base})`);
+	} else {
+		walks.push(
+			`(${select('s.exhaust_type')} FROM setups s FORCE INDEX (PRIMARY) WHERE ${base} ORDER BY s.id DESC LIMIT :newest)`
+		);
+	}
+	// The same setup may come from two walks (its own pipe type, and all of them): once each.
+	// How far the candidates reach from the target's displacement, over all of them (a window is
+	// read before the LIMIT): the page says "compared within ± … cc".
+	const reach = lead === 'cc' ? 'MAX(ABS(c.cc - :v_cc)) OVER ()' : 'NULL';
+	const sql = `SELECT c.*, ${reach} AS reach FROM (${walks.join(' UNION ')}) c ORDER BY c.score, c.id LIMIT :limit`;
+	return { sql, replacements: repl, lead };
 }
 
 type Ranked = Row & {
+	reach: number | null;
 	position: number;
 	change_note: string;
 	method: string | null;
@@ -201,9 +211,9 @@ type Ranked = Row & {
 };
 
 /**
- * Ranked rows with titles, owners, costs and reasons. Two queries at any data size and for any
- * number of results: the band counts, then the ranking with each result's details joined to it
- * (the ranked rows are a derived table with its own LIMIT, so only they are joined).
+ * Ranked rows with titles, owners, costs and reasons. One query at any data size and for any
+ * number of results: the ranking with each result's details joined to it (the ranked rows are a
+ * derived table with its own LIMIT, so only they are joined).
  */
 export async function closeBuilds(
 	target: Target,
@@ -247,7 +257,10 @@ export async function closeBuilds(
 			cc: r.cc
 		};
 	});
-	return { results, bandCc: plan.band, candidates: rows.length };
+	const reach = rows[0]?.reach;
+	// Rounded up to the tenth of a cc the page shows.
+	const bandCc = reach === null || reach === undefined ? null : Math.ceil(Number(reach) * 10) / 10;
+	return { results, bandCc, comparedBy: plan.lead ?? ('newest' as const), candidates: rows.length };
 }
 
 /** "What would I get": the gearing ceiling beside what the closest builds measured. */

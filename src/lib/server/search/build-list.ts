@@ -40,17 +40,25 @@ const KEY = {
 	cheapest: { col: 'b.parts_total_minor', dir: 'ASC' }
 } as const;
 
+/**
+ * The page's conditions. `bounds` are those an index walk in the page's order can start and stop
+ * by (visibility, the order's own column, the cursor, which pageIds adds); the rest are read from
+ * each entry.
+ */
 function where(q: BuildListQuery, units: Units) {
 	const w = ["b.publication = 'published'", "b.moderation = 'visible'"];
+	const bounds = new Set(w);
 	const r: Record<string, unknown> = {};
 	const add = (sql: string, name: string, v: unknown) => {
 		w.push(sql);
 		r[name] = v;
+		if (sql.startsWith(KEY[q.sort].col)) bounds.add(sql);
 	};
 	// A cost order compares like with like: one currency, and only builds with parts listed.
 	if (q.sort === 'cheapest') {
 		add('b.currency = :currency', 'currency', q.currency ?? 'EUR');
 		w.push('b.parts_total_minor > 0');
+		bounds.add('b.currency = :currency').add('b.parts_total_minor > 0');
 	}
 	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
 	if (q.family) add('b.engine_family = :family', 'family', q.family);
@@ -65,17 +73,23 @@ function where(q: BuildListQuery, units: Units) {
 	if (q.elevMax !== undefined) add('b.rep_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
 	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
 	if (q.runs === '1') w.push('b.run_count > 0');
-	return { w, r };
+	return { w, r, bounds };
 }
 
 const PIPES = ['', ...EXHAUST_TYPES.map((o) => o.value)];
-/** Tests turn `filterIndex` off to check that walking the order finds the same pages. */
-export const LIST_TUNING = { filterIndex: true };
+/**
+ * How many index entries a filtered page walks in the order's own index before it ranges over the
+ * filters instead (see pageIds). Tests set it to 0 (always range) or very high (always walk) to
+ * check that both ways find the same pages.
+ */
+export const LIST_TUNING = { walkCap: 2000 };
 const ORDER_INDEX = {
 	newest: 'PRIMARY',
-	fastest: 'builds_best_speed',
+	fastest: 'builds_walk_fastest',
 	cheapest: 'builds_currency_parts'
 };
+/** A displacement band this many whole cc wide or less is read one whole cc at a time. */
+const WHOLE_CC_POINTS = 200;
 
 function cursorWhere(q: BuildListQuery) {
 	if (!q.cursor) return null;
@@ -113,23 +127,25 @@ async function expand(typed: string[]): Promise<string[][]> {
 }
 
 /**
- * The page's ids in order, one of four ways:
+ * The page's ids in order, each way reading a bounded number of index entries:
  * - words to search, newest first: walk the word index (search_words) newest first for each word
  *   the first typed word may be, every build checked against the other words and the filters, and
  *   stop after a page; the walks merge into one page. A common word reads about a page of entries;
  * - words in another order: the builds holding every word, filtered, then sorted;
- * - a pipe or displacement filter: range over builds_list (pipe as a list of points, so the
- *   displacement range applies inside each), which carries every filtered and sorted column, then
- *   sort the matches — index entries only, however many match;
- * - otherwise walk the order's own index and stop after a page.
- * (Walking the order with a narrow filter can pass most builds by — the fastest are rarely 50 cc —
- * which is why a filter on the setup's columns starts from those columns instead.)
+ * - no filter: walk the order's own index and stop after a page;
+ * - filters: first walk the order's own index (a covering one for fastest first) for at most
+ *   walkCap entries, which holds a page whenever one build in a hundred or so passes; when it does
+ *   not, the filter is rare: range over the filter columns (builds_by_whole_cc for a displacement
+ *   band, whole cc by whole cc with the speed range inside each; builds_list for a pipe or one
+ *   bound) and sort the matches, which are then few. (Walking the order alone can pass most
+ *   builds by — the fastest are rarely 50 cc; ranging alone reads every build of a wide band.)
  */
 async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null) {
-	const { w, r } = where(q, units);
+	const { w, r, bounds } = where(q, units);
 	const c = cursorWhere(q);
 	if (c) {
 		w.push(c.sql);
+		bounds.add(c.sql);
 		Object.assign(r, c.r);
 	}
 	const { col, dir } = KEY[q.sort];
@@ -159,23 +175,75 @@ async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null
 		w.push(`b.id IN (SELECT t.build_id FROM search_words t WHERE t.word IN (:lead))`);
 		Object.assign(replacements, { lead: terms[lead] });
 	}
+	if (terms)
+		return db().query<{ id: number; sort_key: number | null }>(
+			`SELECT b.id, ${col} AS sort_key FROM builds b WHERE ${w.join(' AND ')}
+			ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
+			{ replacements, type: QueryTypes.SELECT }
+		);
+	const orderOnly = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
+	if (!filtered(q))
+		return db().query<{ id: number; sort_key: number | null }>(
+			`SELECT b.id, ${col} AS sort_key FROM builds b ${orderOnly} WHERE ${w.join(' AND ')}
+			ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
+			{ replacements, type: QueryTypes.SELECT }
+		);
+	// A filter that many builds pass: the first entries of the order's own index hold a page.
+	// The walk reads at most walkCap of them (the inner LIMIT), whatever the number of builds;
+	// the conditions on the order's own column bound it from inside.
+	if (LIST_TUNING.walkCap > 0) {
+		const inner = w.filter((x) => bounds.has(x));
+		const rest = w.filter((x) => !bounds.has(x));
+		const walked = await db().query<{ id: number; sort_key: number | null }>(
+			`SELECT v.id, v.sort_key FROM (
+				SELECT b.id, ${col} AS sort_key, ${rest.length ? rest.join(' AND ') : 'TRUE'} AS ok
+				FROM builds b ${orderOnly} WHERE ${inner.join(' AND ')}
+				ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :walkCap
+			) v WHERE v.ok ORDER BY v.sort_key ${dir}, v.id ${dir} LIMIT :limit`,
+			{ replacements: { ...replacements, walkCap: LIST_TUNING.walkCap }, type: QueryTypes.SELECT }
+		);
+		if (walked.length >= q.limit + 1) return walked;
+	}
+	// A filter few builds pass: range over the filters and sort what matches. A displacement band
+	// is read one whole cc at a time, each with its own speed range (builds_by_whole_cc), so the
+	// entries read are those that match plus the edges of the two outer whole-cc steps.
 	let index = '';
-	if (
-		!terms &&
-		LIST_TUNING.filterIndex &&
-		(q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined)
-	) {
-		index = 'FORCE INDEX (builds_list)';
+	const band = q.ccMin !== undefined && q.ccMax !== undefined ? wholeCc(q.ccMin, q.ccMax) : null;
+	if (band || q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined) {
+		index = band ? 'FORCE INDEX (builds_by_whole_cc)' : 'FORCE INDEX (builds_list)';
 		if (!q.exhaust) {
 			w.push('b.rep_pipe IN (:pipes)');
 			Object.assign(replacements, { pipes: PIPES });
 		}
-	} else if (!terms) index = `FORCE INDEX (${ORDER_INDEX[q.sort]})`;
+		if (band) {
+			w.push('b.rep_cc_whole IN (:wholes)');
+			Object.assign(replacements, { wholes: band });
+		}
+	} else index = orderOnly;
 	return db().query<{ id: number; sort_key: number | null }>(
 		`SELECT b.id, ${col} AS sort_key FROM builds b ${index} WHERE ${w.join(' AND ')}
 		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
 		{ replacements, type: QueryTypes.SELECT }
 	);
+}
+
+/** Whether a page filters on anything but the order's own bounds. */
+const filtered = (q: BuildListQuery) =>
+	Boolean(
+		q.cycle ||
+		q.family ||
+		q.exhaust ||
+		q.photos ||
+		q.runs === '1' ||
+		[q.ccMin, q.ccMax, q.speedMin, q.speedMax, q.elevMin, q.elevMax].some((v) => v !== undefined)
+	);
+
+/** The whole cc values a band covers, when few enough to read one at a time. */
+function wholeCc(min: number, max: number): number[] | null {
+	const lo = Math.floor(min);
+	const hi = Math.floor(max);
+	if (hi < lo || hi - lo + 1 > WHOLE_CC_POINTS) return null;
+	return Array.from({ length: hi - lo + 1 }, (_, k) => lo + k);
 }
 
 async function page(q: BuildListQuery, units: Units, terms: string[][] | null) {
