@@ -207,10 +207,14 @@ async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null
 	// A filter few builds pass: range over the filters and sort what matches. A displacement band
 	// is read one whole cc at a time, each with its own speed range (builds_by_whole_cc), so the
 	// entries read are those that match plus the edges of the two outer whole-cc steps.
-	let index = '';
 	const band = q.ccMin !== undefined && q.ccMax !== undefined ? wholeCc(q.ccMin, q.ccMax) : null;
-	if (band || q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined) {
-		index = band ? 'FORCE INDEX (builds_by_whole_cc)' : 'FORCE INDEX (builds_list)';
+	const byFilters = Boolean(band || q.exhaust || q.ccMin !== undefined || q.ccMax !== undefined);
+	const index = !byFilters
+		? orderOnly
+		: band
+			? 'FORCE INDEX (builds_by_whole_cc)'
+			: 'FORCE INDEX (builds_list)';
+	if (byFilters) {
 		if (!q.exhaust) {
 			w.push('b.rep_pipe IN (:pipes)');
 			Object.assign(replacements, { pipes: PIPES });
@@ -219,7 +223,7 @@ async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null
 			w.push('b.rep_cc_whole IN (:wholes)');
 			Object.assign(replacements, { wholes: band });
 		}
-	} else index = orderOnly;
+	}
 	return db().query<{ id: number; sort_key: number | null }>(
 		`SELECT b.id, ${col} AS sort_key FROM builds b ${index} WHERE ${w.join(' AND ')}
 		ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
