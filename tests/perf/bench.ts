@@ -9,7 +9,7 @@ import { startApp } from '../security/support/app';
 import { benchClose } from './close-builds';
 import { benchCommunity } from './community';
 import { benchEdge } from './edge';
-import { benchHttp, refusals, type HttpFigure } from './http';
+import { benchHttp, pagesToWeigh, refusals, type HttpFigure } from './http';
 import { benchPageWeight } from './page-weight';
 import { mulberry32, seed } from './seed';
 
@@ -35,10 +35,20 @@ const community = await benchCommunity(mulberry32(11), RUNS);
 
 // The quick run checks that the stages work (one short round), not their figures. PERF_HTTP=0
 // leaves the HTTP and page stages out (the run at a million builds measures the functions).
+// PERF_OUT must then name another file: last-run.json is the full run's.
 let http: Awaited<ReturnType<typeof benchHttp>> | null = null;
 let pages: Awaited<ReturnType<typeof benchPageWeight>> = [];
 let edge: Awaited<ReturnType<typeof benchEdge>> | null = null;
-if (process.env.PERF_HTTP !== '0') {
+// PERF_HTTP=pages: the functions and the pages on a phone only (no load stages), for a quicker
+// look at blocking time.
+if (process.env.PERF_HTTP === 'pages') {
+	const app = await startApp(Number(process.env.PERF_HTTP_PORT ?? 3201));
+	try {
+		pages = await benchPageWeight(app.origin, await pagesToWeigh(app), quick ? 1 : 5);
+	} finally {
+		await app.stop();
+	}
+} else if (process.env.PERF_HTTP !== '0') {
 	const app = await startApp(Number(process.env.PERF_HTTP_PORT ?? 3201));
 	try {
 		http = await benchHttp(app, {

@@ -178,6 +178,12 @@ async function syncVersions(p: { own: { id: number }[] }) {
 
 const NO_CACHE = { 'cache-control': 'no-cache' };
 
+/** The HTML pages the HTTP stage loads, for the page-weight stage run on its own. */
+export async function pagesToWeigh(app: App) {
+	const p = await prepare(app, 1);
+	return routes(p).filter((r) => !r.write && !r.path.startsWith('/api/'));
+}
+
 export async function benchHttp(
 	app: App,
 	opts: { rounds: number; seconds: number; warmupSeconds: number; connections: number }

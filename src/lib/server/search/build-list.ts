@@ -90,6 +90,8 @@ const ORDER_INDEX = {
 };
 /** A displacement band this many whole cc wide or less is read one whole cc at a time. */
 const WHOLE_CC_POINTS = 200;
+/** Fastest first reads each (pipe, whole cc) step's own first page when there are this few. */
+const TOP_OF_EACH_MAX = 48;
 
 function cursorWhere(q: BuildListQuery) {
 	if (!q.cursor) return null;
@@ -136,8 +138,9 @@ async function expand(typed: string[]): Promise<string[][]> {
  * - filters: first walk the order's own index (a covering one for fastest first) for at most
  *   walkCap entries, which holds a page whenever one build in a hundred or so passes; when it does
  *   not, the filter is rare: range over the filter columns (builds_by_whole_cc for a displacement
- *   band, whole cc by whole cc with the speed range inside each; builds_list for a pipe or one
- *   bound) and sort the matches, which are then few. (Walking the order alone can pass most
+ *   band, whole cc by whole cc with the speed range inside each — fastest first takes each
+ *   step's own first page and merges them; builds_list for a pipe or one bound) and sort the
+ *   matches, which are then few. (Walking the order alone can pass most
  *   builds by — the fastest are rarely 50 cc; ranging alone reads every build of a wide band.)
  */
 async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null) {
@@ -214,6 +217,24 @@ async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null
 		: band
 			? 'FORCE INDEX (builds_by_whole_cc)'
 			: 'FORCE INDEX (builds_list)';
+	const pipes = q.exhaust ? [q.exhaust] : PIPES;
+	// Fastest first over a few whole-cc steps: each (pipe, whole cc) is already in speed order in
+	// the index, so the page is the best of each step's own first page — a page per step read,
+	// however many builds match.
+	if (band && q.sort === 'fastest' && pipes.length * band.length <= TOP_OF_EACH_MAX) {
+		const steps = pipes.flatMap((pipe, i) =>
+			band.map((whole, j) => {
+				Object.assign(replacements, { [`sp${i}`]: pipe, [`sw${j}`]: whole });
+				return `(SELECT b.id, ${col} AS sort_key FROM builds b ${index}
+					WHERE ${w.join(' AND ')} AND b.rep_pipe = :sp${i} AND b.rep_cc_whole = :sw${j}
+					ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit)`;
+			})
+		);
+		return db().query<{ id: number; sort_key: number | null }>(
+			`SELECT id, sort_key FROM (${steps.join(' UNION ALL ')}) m ORDER BY sort_key ${dir}, id ${dir} LIMIT :limit`,
+			{ replacements, type: QueryTypes.SELECT }
+		);
+	}
 	if (byFilters) {
 		if (!q.exhaust) {
 			w.push('b.rep_pipe IN (:pipes)');
