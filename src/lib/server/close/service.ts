@@ -191,10 +191,13 @@ export async function planClose(
 			`(${select('s.exhaust_type')} FROM setups s FORCE INDEX (PRIMARY) WHERE ${base} ORDER BY s.id DESC LIMIT :newest)`
 		);
 	}
+	// How far the candidates reach from the target's displacement: the page says "within ± … cc".
+	// Read by its own pass over the walks (a window over the candidates costs several times more).
+	const reach =
+		lead === 'cc'
+			? `(SELECT MAX(ABS(u.cc - :v_cc)) FROM (${walks.join(' UNION ALL ')}) u)`
+			: 'NULL';
 	// The same setup may come from two walks (its own pipe type, and all of them): once each.
-	// How far the candidates reach from the target's displacement, over all of them (a window is
-	// read before the LIMIT): the page says "compared within ± … cc".
-	const reach = lead === 'cc' ? 'MAX(ABS(c.cc - :v_cc)) OVER ()' : 'NULL';
 	const sql = `SELECT c.*, ${reach} AS reach FROM (${walks.join(' UNION ')}) c ORDER BY c.score, c.id LIMIT :limit`;
 	return { sql, replacements: repl, lead };
 }
