@@ -109,6 +109,7 @@ export async function planClose(
 		limit: opts.limit,
 		cap: CAP,
 		walk: BAND.perWalk,
+		ties: BAND.ties,
 		newest: BAND.newest
 	};
 	const terms: string[] = [];
@@ -145,15 +146,28 @@ export async function planClose(
 			(${score.replaceAll('PIPE_COL', pipeCol)}) AS score`;
 	const base = `s.${flag} = 1 AND s.engine_cycle = :cycle ${exclude}`;
 	const walks: string[] = [];
-	/** Entries of `index` where `where` holds, nearest `col` to `centre` first, both ways. */
+	// A walk is found in two steps. First its boundary: the value of its `perWalk`-th entry from
+	// the target (all boundaries in one query, index entries only). Then every entry between the
+	// target and that boundary is read (`ties` at most): many setups share one displacement
+	// (68.0 cc kits), and cutting through them in index order would choose among equals by the
+	// index's next columns rather than by score. (MariaDB does not range over a subquery's value,
+	// hence two statements.)
+	const bounds: { sql: string; key: string }[] = [];
 	const around = (index: string, where: string, col: string, centre: string, pipeCol: string) => {
-		for (const [cmp, dir] of [
-			['>=', 'ASC'],
-			['<', 'DESC']
-		])
+		for (const [cmp, dir, edge, far] of [
+			['>=', 'ASC', 'MAX', '<='],
+			['<', 'DESC', 'MIN', '>=']
+		]) {
+			const cond = `${base} ${where} AND ${col} ${cmp} ${centre}`;
+			const key = `b${bounds.length}`;
+			bounds.push({
+				key,
+				sql: `(SELECT ${edge}(e.v) FROM (SELECT ${col} AS v FROM setups s FORCE INDEX (${index}) WHERE ${cond} ORDER BY ${col} ${dir} LIMIT :walk) e) AS ${key}`
+			});
 			walks.push(
-				`(${select(pipeCol)} FROM setups s FORCE INDEX (${index}) WHERE ${base} ${where} AND ${col} ${cmp} ${centre} ORDER BY ${col} ${dir} LIMIT :walk)`
+				`(${select(pipeCol)} FROM setups s FORCE INDEX (${index}) WHERE ${cond} AND ${col} ${far} :${key} ORDER BY ${col} ${dir} LIMIT :ties)`
 			);
+		}
 	};
 	if (lead === 'cc') {
 		if (target.exhaust)
@@ -191,19 +205,26 @@ export async function planClose(
 			`(${select('s.exhaust_type')} FROM setups s FORCE INDEX (PRIMARY) WHERE ${base} ORDER BY s.id DESC LIMIT :newest)`
 		);
 	}
-	// How far the candidates reach from the target's displacement: the page says "within ± … cc".
-	// Read by its own pass over the walks (a window over the candidates costs several times more).
-	const reach =
-		lead === 'cc'
-			? `(SELECT MAX(ABS(u.cc - :v_cc)) FROM (${walks.join(' UNION ALL ')}) u)`
-			: 'NULL';
+	let reach: number | null = null;
+	if (bounds.length) {
+		const [row] = await db().query<Record<string, number | null>>(
+			`SELECT ${bounds.map((b) => b.sql).join(', ')}`,
+			{ replacements: repl, type: QueryTypes.SELECT }
+		);
+		for (const b of bounds) {
+			const v = row[b.key];
+			repl[b.key] = v === null ? null : Number(v);
+			// How far the candidates reach from the target's displacement ("within ± … cc").
+			if (lead === 'cc' && v !== null)
+				reach = Math.max(reach ?? 0, Math.abs(Number(v) - (target.cc as number)));
+		}
+	}
 	// The same setup may come from two walks (its own pipe type, and all of them): once each.
-	const sql = `SELECT c.*, ${reach} AS reach FROM (${walks.join(' UNION ')}) c ORDER BY c.score, c.id LIMIT :limit`;
-	return { sql, replacements: repl, lead };
+	const sql = `SELECT c.* FROM (${walks.join(' UNION ')}) c ORDER BY c.score, c.id DESC LIMIT :limit`;
+	return { sql, replacements: repl, lead, reach };
 }
 
 type Ranked = Row & {
-	reach: number | null;
 	position: number;
 	change_note: string;
 	method: string | null;
@@ -214,9 +235,9 @@ type Ranked = Row & {
 };
 
 /**
- * Ranked rows with titles, owners, costs and reasons. One query at any data size and for any
- * number of results: the ranking with each result's details joined to it (the ranked rows are a
- * derived table with its own LIMIT, so only they are joined).
+ * Ranked rows with titles, owners, costs and reasons. Two queries at any data size and for any
+ * number of results: the walks' boundaries, then the ranking with each result's details joined
+ * to it (the ranked rows are a derived table with its own LIMIT, so only they are joined).
  */
 export async function closeBuilds(
 	target: Target,
@@ -231,7 +252,7 @@ export async function closeBuilds(
 				WHERE p.build_id = s.build_id AND (ps.position <= s.position OR (p.setup_id IS NULL AND s.listed = 1))) AS parts_minor
 		FROM (${plan.sql}) r
 		JOIN setups s ON s.id = r.id JOIN builds b ON b.id = r.build_id LEFT JOIN users u ON u.id = b.owner_id
-		ORDER BY r.score, r.id`,
+		ORDER BY r.score, r.id DESC`,
 		{ replacements: plan.replacements, type: QueryTypes.SELECT }
 	);
 	const results = rows.map((r) => {
@@ -260,9 +281,8 @@ export async function closeBuilds(
 			cc: r.cc
 		};
 	});
-	const reach = rows[0]?.reach;
 	// Rounded up to the tenth of a cc the page shows.
-	const bandCc = reach === null || reach === undefined ? null : Math.ceil(Number(reach) * 10) / 10;
+	const bandCc = plan.reach === null ? null : Math.ceil(plan.reach * 10) / 10;
 	return { results, bandCc, comparedBy: plan.lead ?? ('newest' as const), candidates: rows.length };
 }
 
