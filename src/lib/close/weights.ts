@@ -27,9 +27,9 @@ export const TERMS = {
  * How many candidates close builds reads: the setups nearest the target's displacement (or
  * carburettor bore), `perWalk` each way from it, among those with the target's pipe type and among
  * all (and those tied with the last, `ties` at most); without either, the `newest` listed
- * setups. Stock engines crowd within a cc or two of 49 cc:
- * ranking a few hundred of the nearest by the other terms gives the same list as ranking tens of
- * thousands, and a denser community only narrows the band they come from (half a cc of
- * displacement is worth 0.15 of score, less than one roller step).
+ * setups. Stock engines crowd within a cc or two of 49 cc: ranking a few hundred of the nearest
+ * by the other terms gives the same list as ranking tens of thousands, and a denser community
+ * only narrows the band they come from (half a cc of displacement is worth 0.15 of score, less
+ * than one roller step).
  */
 export const BAND = { perWalk: 200, ties: 1000, newest: 2000 };
