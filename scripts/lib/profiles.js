@@ -116,8 +116,13 @@ export function stackEnv(name, outer = process.env) {
 		// The SDK is pinned to a release that supports Node 20; its reminder about Node 22 is noise here.
 		AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:
 			outer.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
-		// The test and benchmark databases start empty each run (the benchmark seeds its own).
-		FRESH_DB: (name === 'test' && outer.KEEP_TEST_DB !== '1') || name === 'perf' ? '1' : '',
+		// The test and benchmark databases start empty each run (the benchmark seeds its own), unless
+		// PERF_KEEP_DATA=1 asks the benchmark to time again what it seeded last time.
+		FRESH_DB:
+			(name === 'test' && outer.KEEP_TEST_DB !== '1') ||
+			(name === 'perf' && outer.PERF_KEEP_DATA !== '1')
+				? '1'
+				: '',
 		// Every browser test signs in from 127.0.0.1; the security suite checks the real limit
 		// on a production entry of its own.
 		SIGNIN_ATTEMPTS_PER_ADDRESS:

@@ -188,7 +188,7 @@ describe('builds list and search', () => {
 			const page = await list(q);
 			const sqls = spy.mock.calls.map((c) => String(c[0]));
 			expect(sqls.length).toBe(3); // the walk, the range, the rows' details
-			expect(sqls[0]).toContain('LIMIT :walkCap');
+			expect(sqls[0]).toContain('ROWS EXAMINED :walkCap');
 			expect(sqls[1]).toContain('builds_by_whole_cc');
 			for (const b of page.builds) {
 				expect(b.displacementCc!).toBeGreaterThanOrEqual(49);
@@ -323,6 +323,43 @@ describe('builds list and search', () => {
 			const walk = plan.find((p) => p.table === 't')!;
 			expect(walk.key).toBe('PRIMARY');
 			expect(walk.Extra ?? '').not.toContain('filesort');
+			// With no filter but the words, no build is read until the page's own details.
+			expect(plan.map((p) => p.table)).not.toContain('b');
+		} finally {
+			spy.mockRestore();
+		}
+	});
+
+	it('walks a filtered page in the order’s index alone, in index order, so a stopped walk is a true prefix', async () => {
+		const spy = vi.spyOn(db(), 'query');
+		try {
+			for (const [sort, key] of [
+				['newest', 'builds_walk_newest'],
+				['fastest', 'builds_walk_fastest']
+			] as const) {
+				spy.mockClear();
+				await list({
+					exhaust: 'stock',
+					ccMax: 55,
+					speedMin: 30,
+					cycle: 'two-stroke',
+					sort,
+					limit: 5
+				});
+				const [sql, options] = spy.mock.calls[0] as unknown as [
+					string,
+					{ replacements: Record<string, unknown> }
+				];
+				expect(sql).toContain('ROWS EXAMINED');
+				const plan = await db().query<{ table: string; key: string; Extra: string | null }>(
+					`EXPLAIN ${sql}`,
+					{ replacements: options.replacements, type: QueryTypes.SELECT }
+				);
+				expect(plan).toHaveLength(1);
+				expect(plan[0].key, sort).toBe(key);
+				expect(plan[0].Extra ?? '', sort).toContain('Using index');
+				expect(plan[0].Extra ?? '', sort).not.toContain('filesort');
+			}
 		} finally {
 			spy.mockRestore();
 		}

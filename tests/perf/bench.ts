@@ -28,7 +28,10 @@ const fig = (t: { p50: number; p95: number; p99: number; max: number; runs: numb
 });
 
 const t0 = performance.now();
-const seeded = await seed(N, mulberry32(424242), { settle: !quick });
+const seeded = await seed(N, mulberry32(424242), {
+	settle: !quick,
+	reuse: process.env.PERF_KEEP_DATA === '1'
+});
 const seedSeconds = (performance.now() - t0) / 1000;
 const close = await benchClose(mulberry32(7), RUNS, NAIVE_RUNS);
 const community = await benchCommunity(mulberry32(11), RUNS);
@@ -107,6 +110,8 @@ const result = {
 	summaries: seeded.summaries,
 	quick,
 	seedSeconds: Number(seedSeconds.toFixed(1)),
+	// Timed on the database kept from an earlier run (PERF_KEEP_DATA=1), not seeded anew.
+	reusedData: seeded.reused,
 	closeBuilds: fig(close.ours),
 	naive: fig(close.slow),
 	sameSqlNoBand: fig(close.sameSql),

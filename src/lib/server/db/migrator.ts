@@ -24,6 +24,7 @@ import * as m020 from './migrations/2026.12.03T14.10.00.theme';
 import * as m021 from './migrations/2026.12.03T14.30.00.run-air-optional';
 import * as m022 from './migrations/2026.12.03T17.00.00.public-version';
 import * as m023 from './migrations/2026.12.03T17.30.00.list-walks';
+import * as m024 from './migrations/2026.12.03T20.00.00.walk-newest';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -51,7 +52,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.03T14.10.00.theme', ...m020 },
 	{ name: '2026.12.03T14.30.00.run-air-optional', ...m021 },
 	{ name: '2026.12.03T17.00.00.public-version', ...m022 },
-	{ name: '2026.12.03T17.30.00.list-walks', ...m023 }
+	{ name: '2026.12.03T17.30.00.list-walks', ...m023 },
+	{ name: '2026.12.03T20.00.00.walk-newest', ...m024 }
 ];
 
 export function migrator() {

@@ -40,25 +40,18 @@ const KEY = {
 	cheapest: { col: 'b.parts_total_minor', dir: 'ASC' }
 } as const;
 
-/**
- * The page's conditions. `bounds` are those an index walk in the page's order can start and stop
- * by (visibility, the order's own column, the cursor, which pageIds adds); the rest are read from
- * each entry.
- */
+/** The page's conditions and their values. */
 function where(q: BuildListQuery, units: Units) {
 	const w = ["b.publication = 'published'", "b.moderation = 'visible'"];
-	const bounds = new Set(w);
 	const r: Record<string, unknown> = {};
 	const add = (sql: string, name: string, v: unknown) => {
 		w.push(sql);
 		r[name] = v;
-		if (sql.startsWith(KEY[q.sort].col)) bounds.add(sql);
 	};
 	// A cost order compares like with like: one currency, and only builds with parts listed.
 	if (q.sort === 'cheapest') {
 		add('b.currency = :currency', 'currency', q.currency ?? 'EUR');
 		w.push('b.parts_total_minor > 0');
-		bounds.add('b.currency = :currency').add('b.parts_total_minor > 0');
 	}
 	if (q.cycle) add('b.engine_cycle = :cycle', 'cycle', q.cycle);
 	if (q.family) add('b.engine_family = :family', 'family', q.family);
@@ -73,18 +66,22 @@ function where(q: BuildListQuery, units: Units) {
 	if (q.elevMax !== undefined) add('b.rep_elevation_m <= :elevMax', 'elevMax', elev(q.elevMax));
 	if (q.photos) w.push('EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id)');
 	if (q.runs === '1') w.push('b.run_count > 0');
-	return { w, r, bounds };
+	return { w, r };
 }
 
 const PIPES = ['', ...EXHAUST_TYPES.map((o) => o.value)];
 /**
  * How many index entries a filtered page walks in the order's own index before it ranges over the
  * filters instead (see pageIds). Tests set it to 0 (always range) or very high (always walk) to
- * check that both ways find the same pages.
+ * check that both ways find the same pages. The walk reads covering entries only; at this cap a
+ * filter it gives up on is passed by fewer than one build in a thousand, so the range after it
+ * reads few entries too.
  */
-export const LIST_TUNING = { walkCap: 2000 };
+export const LIST_TUNING = { walkCap: 20_000 };
+/** A walk that must look each entry's build up (see pageIds) stops sooner. */
+const LOOKUP_WALK_CAP = 2000;
 const ORDER_INDEX = {
-	newest: 'PRIMARY',
+	newest: 'builds_walk_newest',
 	fastest: 'builds_walk_fastest',
 	cheapest: 'builds_currency_parts'
 };
@@ -131,24 +128,24 @@ async function expand(typed: string[]): Promise<string[][]> {
 /**
  * The page's ids in order, each way reading a bounded number of index entries:
  * - words to search, newest first: walk the word index (search_words) newest first for each word
- *   the first typed word may be, every build checked against the other words and the filters, and
- *   stop after a page; the walks merge into one page. A common word reads about a page of entries;
+ *   the first typed word may be, every entry checked against the other words (and, with filters,
+ *   its build), and stop after a page; the walks merge into one page. A common word reads about a
+ *   page of index entries;
  * - words in another order: the builds holding every word, filtered, then sorted;
  * - no filter: walk the order's own index and stop after a page;
- * - filters: first walk the order's own index (a covering one for fastest first) for at most
- *   walkCap entries, which holds a page whenever one build in a hundred or so passes; when it does
- *   not, the filter is rare: range over the filter columns (builds_by_whole_cc for a displacement
+ * - filters: first walk the order's own index (covering ones for newest and fastest first) until
+ *   a page is found or walkCap entries are read, which holds a page whenever one build in a
+ *   thousand or so passes; when it does not, the filter is rare: range over the filter columns (builds_by_whole_cc for a displacement
  *   band, whole cc by whole cc with the speed range inside each — fastest first takes each
  *   step's own first page and merges them; builds_list for a pipe or one bound) and sort the
  *   matches, which are then few. (Walking the order alone can pass most
  *   builds by — the fastest are rarely 50 cc; ranging alone reads every build of a wide band.)
  */
 async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null) {
-	const { w, r, bounds } = where(q, units);
+	const { w, r } = where(q, units);
 	const c = cursorWhere(q);
 	if (c) {
 		w.push(c.sql);
-		bounds.add(c.sql);
 		Object.assign(r, c.r);
 	}
 	const { col, dir } = KEY[q.sort];
@@ -157,24 +154,34 @@ async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null
 		// The typed word with the fewest forms leads; every other must be there too.
 		const order = terms.map((_, i) => i).sort((a, b) => terms[a].length - terms[b].length);
 		const [lead, ...rest] = order;
-		rest.forEach((i) => {
-			w.push(
-				`EXISTS (SELECT 1 FROM search_words t${i} WHERE t${i}.build_id = b.id AND t${i}.word IN (:x${i}))`
+		const holds = (ref: string) =>
+			rest.map(
+				(i) =>
+					`EXISTS (SELECT 1 FROM search_words t${i} WHERE t${i}.build_id = ${ref} AND t${i}.word IN (:x${i}))`
 			);
-			Object.assign(replacements, { [`x${i}`]: terms[i] });
-		});
+		rest.forEach((i) => Object.assign(replacements, { [`x${i}`]: terms[i] }));
 		if (q.sort === 'newest') {
-			if (c) w.push('t.build_id < :cid');
+			// The word index holds listed builds only (derived/search-words.ts), so with no filter
+			// but the words the walk reads index entries alone and looks up just the page's builds;
+			// a filter joins each entry's build.
+			const alone = !filtered(q);
+			const conds = alone
+				? [...holds('t.build_id'), ...(c ? ['t.build_id < :cid'] : [])]
+				: [...w, ...holds('b.id'), ...(c ? ['t.build_id < :cid'] : [])];
 			const walks = terms[lead].map((word, k) => {
 				Object.assign(replacements, { [`e${k}`]: word });
-				return `(SELECT STRAIGHT_JOIN t.build_id AS id FROM search_words t JOIN builds b ON b.id = t.build_id
-					WHERE t.word = :e${k} AND ${w.join(' AND ')} ORDER BY t.build_id DESC LIMIT :limit)`;
+				const head = alone
+					? 'SELECT t.build_id AS id FROM search_words t'
+					: 'SELECT STRAIGHT_JOIN t.build_id AS id FROM search_words t JOIN builds b ON b.id = t.build_id';
+				return `(${head} WHERE ${['t.word = :e' + k, ...conds].join(' AND ')}
+					ORDER BY t.build_id DESC LIMIT :limit)`;
 			});
 			return db().query<{ id: number; sort_key: number | null }>(
 				`SELECT id, id AS sort_key FROM (${walks.join(' UNION ')}) m ORDER BY id DESC LIMIT :limit`,
 				{ replacements, type: QueryTypes.SELECT }
 			);
 		}
+		w.push(...holds('b.id'));
 		w.push(`b.id IN (SELECT t.build_id FROM search_words t WHERE t.word IN (:lead))`);
 		Object.assign(replacements, { lead: terms[lead] });
 	}
@@ -191,19 +198,18 @@ async function pageIds(q: BuildListQuery, units: Units, terms: string[][] | null
 			ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit`,
 			{ replacements, type: QueryTypes.SELECT }
 		);
-	// A filter that many builds pass: the first entries of the order's own index hold a page.
-	// The walk reads at most walkCap of them (the inner LIMIT), whatever the number of builds;
-	// the conditions on the order's own column bound it from inside.
-	if (LIST_TUNING.walkCap > 0) {
-		const inner = w.filter((x) => bounds.has(x));
-		const rest = w.filter((x) => !bounds.has(x));
+	// A filter that many builds pass: the first entries of the order's own index hold a page. The
+	// walk stops at a page or after walkCap entries (MariaDB's LIMIT ROWS EXAMINED), whatever the
+	// number of builds; short of a page, the range below answers exactly.
+	// A filter on what the order's index does not hold (a family, photos; any filter of cheapest
+	// first) looks each entry's row up, so that walk is shorter.
+	const covered = q.sort !== 'cheapest' && !q.family && !q.photos;
+	const cap = covered ? LIST_TUNING.walkCap : Math.min(LIST_TUNING.walkCap, LOOKUP_WALK_CAP);
+	if (cap > 0) {
 		const walked = await db().query<{ id: number; sort_key: number | null }>(
-			`SELECT v.id, v.sort_key FROM (
-				SELECT b.id, ${col} AS sort_key, ${rest.length ? rest.join(' AND ') : 'TRUE'} AS ok
-				FROM builds b ${orderOnly} WHERE ${inner.join(' AND ')}
-				ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :walkCap
-			) v WHERE v.ok ORDER BY v.sort_key ${dir}, v.id ${dir} LIMIT :limit`,
-			{ replacements: { ...replacements, walkCap: LIST_TUNING.walkCap }, type: QueryTypes.SELECT }
+			`SELECT b.id, ${col} AS sort_key FROM builds b ${orderOnly} WHERE ${w.join(' AND ')}
+			ORDER BY ${col} ${dir}, b.id ${dir} LIMIT :limit ROWS EXAMINED :walkCap`,
+			{ replacements: { ...replacements, walkCap: cap }, type: QueryTypes.SELECT }
 		);
 		if (walked.length >= q.limit + 1) return walked;
 	}
@@ -289,7 +295,7 @@ async function page(q: BuildListQuery, units: Units, terms: string[][] | null) {
 				b.owner_id IS NULL AS owner_gone
 			FROM builds b
 			LEFT JOIN users u ON u.id = b.owner_id
-			WHERE b.id IN (:ids)`,
+			WHERE b.id IN (:ids) AND b.publication = 'published' AND b.moderation = 'visible'`,
 				{ replacements: { ids: mine.map((x) => x.id) }, type: QueryTypes.SELECT }
 			)
 		: [];
