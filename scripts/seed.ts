@@ -6,6 +6,7 @@ import type { Role } from '../src/lib/roles';
 import { seedBuilds } from './demo/builds';
 import { seedOneChange } from './demo/one-change';
 import { seedShops } from './demo/shops';
+import { seedScooters } from './demo/scooters';
 
 type Person = { email: string; name: string; role: Role; units?: 'metric' | 'imperial' };
 const demo = JSON.parse(
@@ -29,8 +30,10 @@ for (const p of demo.people) {
 	const u = await users.readByEmail(p.email);
 	if (u) owners.push(u.id);
 }
-const builds = await seedBuilds(owners);
-const steady = await seedOneChange(owners);
+const scooters = await seedScooters();
+console.log(`  ${scooters.size} base scooters in the catalogue`);
+const builds = await seedBuilds(owners, scooters);
+const steady = await seedOneChange(owners, scooters);
 console.log(`  ${builds + steady} demo build sheets added`);
 console.log(`  ${await seedShops()} demo shop pages added`);
 await closeDb();

@@ -5,6 +5,7 @@ import * as builds from '../../src/lib/server/sheet/builds';
 import { models } from '../../src/lib/server/db/models';
 import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { setPublication } from '../../src/lib/server/sheet/build-service';
+import { FAMILIES, SCOOTERS, demoScooterKey, type DemoScooter } from './scooters';
 
 function mulberry32(seed: number) {
 	return () => {
@@ -23,6 +24,7 @@ const pick = <T>(xs: readonly T[]) => xs[Math.floor(rng() * xs.length)];
 const between = (a: number, b: number) => a + (b - a) * rng();
 const round = (x: number, step: number) => Math.round(x / step) * step;
 
+// Each chassis as owners write it, and the base scooter it is (the first six of the catalogue).
 const CHASSIS = [
 	'Tessly Urbano 12-inch (2018)',
 	'Kobrin Metro 10-inch (2011)',
@@ -31,11 +33,6 @@ const CHASSIS = [
 	'Marrowby Dash 10-inch (2008)',
 	'Quennel Strada 13-inch (2022)'
 ];
-const TYRES: Record<string, string[]> = {
-	'10': ['3.50-10 51J', '120/90-10 57J'],
-	'12': ['120/70-12 51L', '130/70-12 56L', '120/70-12 51J'],
-	'13': ['130/60-13 53P', '120/70-13 53P']
-};
 const PLACES = [
 	{ name: 'the harbour', elevation: 10 },
 	{ name: 'the river valley', elevation: 150 },
@@ -72,33 +69,41 @@ export function gearingLimitOf(c: Config) {
 	);
 }
 
-function stockSetup(wheel: string): Config {
+/** The stock baseline as the scooter left the factory; the jet and squish as each engine came. */
+function stockSetup(sc: DemoScooter): Config {
+	const f = FAMILIES[sc.family];
 	return {
 		changeNote: 'Stock baseline',
 		isStock: true,
-		bore: 40,
-		stroke: 39.2,
+		bore: f.boreMm,
+		stroke: f.strokeMm,
 		kitMaterial: 'cast-iron',
 		squish: round(between(1.2, 1.6), 0.05),
-		carbBore: 12,
+		carbBore: sc.carbBoreMm,
 		mainJet: round(between(76, 84), 2),
 		jetNumbering: 'diameter',
 		needleClip: 3,
 		airScrewTurns: 1.5,
 		exhaustType: 'stock',
 		restrictorRemoved: false,
-		rollerWeights: `6x${pick([5.5, 6, 6.5])}`,
-		topCvtRatio: round(between(0.94, 1.0), 0.01),
-		primaryDriver: 13,
-		primaryDriven: pick([42, 43]),
-		secondaryDriver: 13,
-		secondaryDriven: pick([46, 47]),
-		rearTyre: pick(TYRES[wheel]),
+		rollerWeights: `${sc.rollerCount}x${sc.rollerWeightG}`,
+		topCvtRatio: sc.cvtTopRatio,
+		primaryDriver: sc.stages[0][0],
+		primaryDriven: sc.stages[0][1],
+		secondaryDriver: sc.stages[1][0],
+		secondaryDriven: sc.stages[1][1],
+		rearTyre: sc.rearTyre,
 		lubrication: 'oil-injection',
 		octane: 95,
-		peakRpm: round(between(6800, 7400), 100),
+		peakRpm: sc.peakRpm + round(between(-200, 200), 100),
 		casePorted: false
 	};
+}
+
+/** A speed held near the class limit while the factory restrictors are in. */
+function restricted(c: Config, sc: DemoScooter, speed: number): number {
+	if (c.restrictorRemoved || !sc.classLimitKmh) return speed;
+	return Math.min(speed, sc.classLimitKmh * (0.97 + 0.05 * rng()));
 }
 
 const STEPS: ((c: Config) => [string, Config, [string, string, number][]])[] = [
@@ -167,11 +172,15 @@ const STEPS: ((c: Config) => [string, Config, [string, string, number][]])[] = [
 	]
 ];
 
-export async function seedBuilds(ownerIds: string[]): Promise<number> {
+export async function seedBuilds(
+	ownerIds: string[],
+	scooterIds: Map<string, number>
+): Promise<number> {
 	let added = 0;
 	for (let i = 0; i < 60; i++) {
 		const chassis = CHASSIS[i % CHASSIS.length];
-		const wheel = /(\d+)-inch/.exec(chassis)![1];
+		const scooter = SCOOTERS[i % CHASSIS.length];
+		const family = FAMILIES[scooter.family];
 		const place = PLACES[(i * 7) % PLACES.length];
 		const steps = 1 + (i % 5);
 		const title = `${chassis.split(' ').slice(0, 2).join(' ')} no. ${i + 1}: ${steps === 1 ? 'stock and measured' : steps < 3 ? 'first steps' : steps < 4 ? '70 cc kit' : '70 cc kit with expansion chamber'}`;
@@ -181,16 +190,20 @@ export async function seedBuilds(ownerIds: string[]): Promise<number> {
 		const b = await builds.create(ownerIds[i % ownerIds.length], {
 			title,
 			chassis,
-			engineFamily: `${i % 3 === 2 ? 'vertical' : 'horizontal'} 50 cc ${i % 4 === 3 ? 'liquid' : 'air'}-cooled two-stroke`,
-			cylinderOrientation: i % 3 === 2 ? 'vertical' : 'horizontal',
-			cooling: i % 4 === 3 ? 'liquid' : 'air',
+			engineFamily: family.name,
+			cylinderOrientation: family.cylinderOrientation,
+			cooling: family.cooling,
 			brakeFront: pick(['190 mm disc', '220 mm disc', '110 mm drum']),
 			brakeRear: '110 mm drum',
 			brakesUpgraded: steps >= 4 && i % 2 === 0,
 			currency: pick(['EUR', 'EUR', 'GBP', 'USD']),
 			story: `Tuned at ${place.name} (about ${place.elevation} m). Every change was made one at a time and measured with a GPS logger on a closed course.`
 		});
-		let config = stockSetup(wheel);
+		await models().Build.update(
+			{ baseScooterId: scooterIds.get(demoScooterKey(scooter)) ?? null },
+			{ where: { id: b.id } }
+		);
+		let config = stockSetup(scooter);
 		for (let s = 0; s < steps; s++) {
 			let parts: [string, string, number][] = [];
 			let note = 'Stock baseline';
@@ -212,8 +225,9 @@ export async function seedBuilds(ownerIds: string[]): Promise<number> {
 				const season = SEASONS[Math.floor(local() * SEASONS.length)];
 				await saveRun(b.id, setupId, {
 					runOn: `${2024 + Math.floor(s / 2)}-${season.month}-${String(10 + r * 7 + s).padStart(2, '0')}`,
-					// At or below the gearing limit: drag and a not-quite-full shift cost 3–15 %.
-					speed: Math.round(limit * (0.85 + 0.12 * local()) * 10) / 10,
+					// At or below the gearing limit: drag and a not-quite-full shift cost 3–15 %; with
+					// its restrictors in, about the class limit the factory set.
+					speed: Math.round(restricted(config, scooter, limit * (0.85 + 0.12 * local())) * 10) / 10,
 					method: pick(['gps-logger', 'gps-logger', 'phone-gps', 'radar']),
 					twoWay: local() < 0.6,
 					venue: local() < 0.7 ? 'closed-course' : 'private-ground',

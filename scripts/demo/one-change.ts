@@ -8,6 +8,7 @@ import { models } from '../../src/lib/server/db/models';
 import { addPart, saveRun, saveSetup } from '../../src/lib/server/sheet/service';
 import { setPublication } from '../../src/lib/server/sheet/build-service';
 import { gearingLimitOf, type Config } from './builds';
+import { FAMILIES } from './scooters';
 
 type Step = {
 	note: string;
@@ -76,7 +77,10 @@ const STEPS: Step[] = [
 	}
 ];
 
-export async function seedOneChange(ownerIds: string[]): Promise<number> {
+export async function seedOneChange(
+	ownerIds: string[],
+	scooterIds: Map<string, number>
+): Promise<number> {
 	const rnd = mulberry32(20261202);
 	let added = 0;
 	for (let i = 0; i < 24; i++) {
@@ -88,7 +92,7 @@ export async function seedOneChange(ownerIds: string[]): Promise<number> {
 		const b = await builds.create(ownerIds[(i * 5) % ownerIds.length], {
 			title,
 			chassis: 'Harrow Vesta 12-inch (2019)',
-			engineFamily: 'horizontal 50 cc air-cooled two-stroke',
+			engineFamily: FAMILIES.kestrel.name,
 			cylinderOrientation: 'horizontal',
 			cooling: 'air',
 			brakeFront: '220 mm disc',
@@ -97,6 +101,10 @@ export async function seedOneChange(ownerIds: string[]): Promise<number> {
 			currency: i % 3 === 0 ? 'GBP' : 'EUR',
 			story: `Built as a 70 cc kit with an expansion chamber, then changed one thing at a time. Every run on the same stretch of closed course at about ${elevation} m, two ways, on a GPS logger.`
 		});
+		await models().Build.update(
+			{ baseScooterId: scooterIds.get('Harrow Vesta 50') ?? null },
+			{ where: { id: b.id } }
+		);
 		let config: Config = {
 			changeNote: 'Kit, chamber and 19 mm carburettor run in',
 			isStock: false,

@@ -54,6 +54,8 @@ test('the public pages have no serious accessibility problems in either theme', 
 		'/slide-rule',
 		'/slide-rule/retune',
 		'/shops',
+		'/scooters',
+		'/scooters/1',
 		'/signin'
 	]);
 });

@@ -25,6 +25,7 @@ import * as m021 from './migrations/2026.12.03T14.30.00.run-air-optional';
 import * as m022 from './migrations/2026.12.03T17.00.00.public-version';
 import * as m023 from './migrations/2026.12.03T17.30.00.list-walks';
 import * as m024 from './migrations/2026.12.03T20.00.00.walk-newest';
+import * as m025 from './migrations/2026.12.03T20.30.00.base-scooters';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -53,7 +54,8 @@ const MIGRATIONS = [
 	{ name: '2026.12.03T14.30.00.run-air-optional', ...m021 },
 	{ name: '2026.12.03T17.00.00.public-version', ...m022 },
 	{ name: '2026.12.03T17.30.00.list-walks', ...m023 },
-	{ name: '2026.12.03T20.00.00.walk-newest', ...m024 }
+	{ name: '2026.12.03T20.00.00.walk-newest', ...m024 },
+	{ name: '2026.12.03T20.30.00.base-scooters', ...m025 }
 ];
 
 export function migrator() {

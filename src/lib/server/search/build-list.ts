@@ -283,25 +283,8 @@ async function page(q: BuildListQuery, units: Units, terms: string[][] | null) {
 	const more = ids.length > q.limit;
 	const mine = ids.slice(0, q.limit);
 	const last = mine.at(-1);
-	const rows = mine.length
-		? await db().query<Record<string, unknown>>(
-				`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
-				b.currency, b.setup_count, b.run_count, u.name AS owner,
-				b.rep_cc, b.rep_pipe, b.rep_elevation_m,
-				EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos,
-				(SELECT sh.name FROM shop_links sl JOIN shops sh ON sh.id = sl.shop_id
-					WHERE sl.build_id = b.id AND sl.state = 'approved' AND sh.verified_at IS NOT NULL
-					AND sh.moderation = 'visible' ORDER BY sl.id LIMIT 1) AS verified_shop,
-				b.owner_id IS NULL AS owner_gone
-			FROM builds b
-			LEFT JOIN users u ON u.id = b.owner_id
-			WHERE b.id IN (:ids) AND b.publication = 'published' AND b.moderation = 'visible'`,
-				{ replacements: { ids: mine.map((x) => x.id) }, type: QueryTypes.SELECT }
-			)
-		: [];
-	const byId = new Map(rows.map((x) => [Number(x.id), toRow(x)]));
 	return {
-		builds: mine.map((x) => byId.get(Number(x.id))!).filter(Boolean),
+		builds: await listRows(mine.map((x) => Number(x.id))),
 		next:
 			more && last
 				? Buffer.from(
@@ -309,6 +292,30 @@ async function page(q: BuildListQuery, units: Units, terms: string[][] | null) {
 					).toString('base64url')
 				: null
 	};
+}
+
+/**
+ * The list's rows for these builds, in the order given, listed builds only (a build hidden or
+ * unpublished since its id was found is left out). One query, whatever the number of ids.
+ */
+export async function listRows(ids: number[]): Promise<ListRow[]> {
+	if (!ids.length) return [];
+	const rows = await db().query<Record<string, unknown>>(
+		`SELECT b.id, b.title, b.engine_family, b.best_speed_kmh, b.stock_speed_kmh, b.parts_total_minor,
+			b.currency, b.setup_count, b.run_count, u.name AS owner,
+			b.rep_cc, b.rep_pipe, b.rep_elevation_m,
+			EXISTS (SELECT 1 FROM photos ph WHERE ph.build_id = b.id) AS photos,
+			(SELECT sh.name FROM shop_links sl JOIN shops sh ON sh.id = sl.shop_id
+				WHERE sl.build_id = b.id AND sl.state = 'approved' AND sh.verified_at IS NOT NULL
+				AND sh.moderation = 'visible' ORDER BY sl.id LIMIT 1) AS verified_shop,
+			b.owner_id IS NULL AS owner_gone
+		FROM builds b
+		LEFT JOIN users u ON u.id = b.owner_id
+		WHERE b.id IN (:ids) AND b.publication = 'published' AND b.moderation = 'visible'`,
+		{ replacements: { ids }, type: QueryTypes.SELECT }
+	);
+	const byId = new Map(rows.map((x) => [Number(x.id), toRow(x)]));
+	return ids.map((id) => byId.get(id)).filter((r): r is ListRow => Boolean(r));
 }
 
 const n = (v: unknown) => (v === null || v === undefined ? null : Number(v));

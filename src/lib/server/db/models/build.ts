@@ -17,6 +17,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 	declare story: CreationOptional<string>;
 	declare chassis: CreationOptional<string>;
 	declare engineFamily: CreationOptional<string>;
+	declare baseScooterId: CreationOptional<number | null>;
 	declare engineCycle: CreationOptional<'two-stroke' | 'four-stroke'>;
 	declare cooling: CreationOptional<'air' | 'liquid'>;
 	declare cylinderOrientation: CreationOptional<'horizontal' | 'vertical'>;
@@ -54,6 +55,7 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
 				story: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
 				chassis: str(),
 				engineFamily: str(),
+				baseScooterId: { type: DataTypes.INTEGER, allowNull: true },
 				engineCycle: {
 					type: DataTypes.ENUM('two-stroke', 'four-stroke'),
 					allowNull: false,

@@ -10,12 +10,15 @@ import { Part } from './part';
 import { Photo } from './photo';
 import { RidingConditions } from './riding-conditions';
 import { Run } from './run';
+import { BaseScooter, EngineFamily } from './scooter';
 import { Setup } from './setup';
 import { BuildTransfer, Shop, ShopLink, ShopMessage, ShopStaff } from './shop';
 import { User } from './user';
 
 export {
 	Account,
+	BaseScooter,
+	EngineFamily,
 	Build,
 	BuildTransfer,
 	Shop,
@@ -65,6 +68,9 @@ export function models() {
 		BuildTransfer.setup(sequelize);
 		ShopMessage.setup(sequelize);
 		RidingConditions.setup(sequelize);
+		EngineFamily.setup(sequelize);
+		BaseScooter.setup(sequelize);
+		BaseScooter.belongsTo(EngineFamily, { foreignKey: 'engineFamilyId', as: 'family' });
 		ShopLink.belongsTo(Shop, { foreignKey: 'shopId', as: 'shop' });
 		ShopMessage.belongsTo(User, { foreignKey: 'senderId', as: 'sender' });
 		Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
@@ -98,6 +104,8 @@ export function models() {
 		ShopLink,
 		BuildTransfer,
 		ShopMessage,
+		EngineFamily,
+		BaseScooter,
 		RidingConditions
 	};
 }

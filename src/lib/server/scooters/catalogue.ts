@@ -1,0 +1,110 @@
+import { Op, QueryTypes } from 'sequelize';
+import { Failure } from '../../failure';
+import { roleAllows, type Role } from '../../roles';
+import { familyView, type BaseScooterView } from '../../scooters/catalogue';
+import { scooterSearch } from '../../scooters/search';
+import { listRows, type ListRow } from '../search/build-list';
+import { db } from '../db/connection';
+import { models, type BaseScooter } from '../db/models';
+
+// The catalogue of base scooters: who sees which entry, the search, and a scooter's builds.
+// Listed entries are public; a proposed one is seen by its proposer and the moderators.
+
+export type Viewer = { id: string; role: Role } | null;
+
+export function scooterView(row: BaseScooter): BaseScooterView {
+	const f = row.family!;
+	const stages: [number, number][] = [];
+	if (row.primaryDriver && row.primaryDriven) stages.push([row.primaryDriver, row.primaryDriven]);
+	if (row.secondaryDriver && row.secondaryDriven)
+		stages.push([row.secondaryDriver, row.secondaryDriven]);
+	return {
+		id: row.id,
+		maker: row.maker,
+		model: row.model,
+		yearFrom: row.yearFrom,
+		yearTo: row.yearTo ?? null,
+		family: familyView({
+			id: f.id,
+			name: f.name,
+			engineCycle: f.engineCycle,
+			cooling: f.cooling,
+			cylinderOrientation: f.cylinderOrientation,
+			boreMm: f.boreMm,
+			strokeMm: f.strokeMm
+		}),
+		carbBoreMm: row.carbBoreMm ?? null,
+		finalDrive: stages,
+		cvtLowRatio: row.cvtLowRatio ?? null,
+		cvtTopRatio: row.cvtTopRatio ?? null,
+		rollerCount: row.rollerCount ?? null,
+		rollerWeightG: row.rollerWeightG ?? null,
+		rearTyre: row.rearTyre,
+		restrictors: row.restrictors,
+		peakRpm: row.peakRpm ?? null,
+		stockSpeedKmh: row.stockSpeedKmh ?? null,
+		stockSpeedSource: row.stockSpeedSource,
+		state: row.state
+	};
+}
+
+const seesProposals = (v: Viewer) => Boolean(v && roleAllows(v.role, 'moderator'));
+
+/** Every entry the viewer may see, by maker and model: the listed ones and their own proposals. */
+export async function catalogue(viewer: Viewer = null): Promise<BaseScooterView[]> {
+	const { BaseScooter, EngineFamily } = models();
+	const mine = viewer ? [{ state: 'proposed', proposedBy: viewer.id }] : [];
+	const rows = await BaseScooter.findAll({
+		where: { [Op.or]: [{ state: 'listed' }, ...mine] },
+		include: [{ model: EngineFamily, as: 'family' }],
+		order: [
+			['maker', 'ASC'],
+			['model', 'ASC'],
+			['yearFrom', 'ASC']
+		]
+	});
+	return rows.map(scooterView);
+}
+
+/** The catalogue searched by a typed name (typos forgiven), best match first; all when empty. */
+export async function findScooters(typed: string, viewer: Viewer = null) {
+	return scooterSearch(await catalogue(viewer))(typed);
+}
+
+/** One entry, or 404 for one the viewer may not see. */
+export async function readScooter(id: number, viewer: Viewer = null): Promise<BaseScooterView> {
+	const { BaseScooter, EngineFamily } = models();
+	const row = await BaseScooter.findByPk(id, {
+		include: [{ model: EngineFamily, as: 'family' }]
+	});
+	const visible =
+		row &&
+		(row.state === 'listed' ||
+			seesProposals(viewer) ||
+			(row.state === 'proposed' && viewer && row.proposedBy === viewer.id));
+	if (!visible) throw new Failure(404, 'No such base scooter.');
+	return scooterView(row);
+}
+
+export const SCOOTER_PAGE = 24;
+
+/**
+ * The published builds on a scooter, newest first, a page at a time by key (`before` an id): one
+ * walk of builds_by_scooter and one query for the rows.
+ */
+export async function scooterBuilds(
+	scooterId: number,
+	before: number | null = null
+): Promise<{ builds: ListRow[]; next: number | null }> {
+	const ids = await db().query<{ id: number }>(
+		`SELECT id FROM builds FORCE INDEX (builds_by_scooter)
+		WHERE base_scooter_id = :scooterId AND publication = 'published' AND moderation = 'visible'
+		${before ? 'AND id < :before' : ''} ORDER BY id DESC LIMIT :limit`,
+		{ replacements: { scooterId, before, limit: SCOOTER_PAGE + 1 }, type: QueryTypes.SELECT }
+	);
+	const page = ids.slice(0, SCOOTER_PAGE).map((r) => Number(r.id));
+	return {
+		builds: await listRows(page),
+		next: ids.length > SCOOTER_PAGE ? page.at(-1)! : null
+	};
+}

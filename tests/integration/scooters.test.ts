@@ -1,0 +1,208 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { closeDb, db } from '../../src/lib/server/db/connection';
+import { models } from '../../src/lib/server/db/models';
+import {
+	catalogue,
+	findScooters,
+	readScooter,
+	scooterBuilds,
+	SCOOTER_PAGE
+} from '../../src/lib/server/scooters/catalogue';
+import { setHidden } from '../../src/lib/server/review/items';
+import { destroyBuild } from '../../src/lib/server/sheet/build-service';
+import { stockGearingLimitKmh } from '../../src/lib/scooters/catalogue';
+import { GET as listApi } from '../../src/routes/api/scooters/+server';
+import { GET as oneApi } from '../../src/routes/api/scooters/[id=id]/+server';
+import { asUser, fakeEvent } from '../support/events';
+import { makeUser } from '../support/factories';
+import { publishedBuild } from '../support/moderation-fixtures';
+
+// The catalogue of base scooters: who sees which entry, the typo-tolerant search, a scooter's
+// published builds, and the JSON API over them. Fixtures carry a word of their own so the demo
+// catalogue never decides a result.
+
+const tag = randomUUID().slice(0, 6);
+let familyId = 0;
+let listedId = 0;
+let proposedId = 0;
+let proposer: { id: string; email: string };
+let owner: { id: string; email: string };
+const buildIds: number[] = [];
+
+beforeAll(async () => {
+	const { EngineFamily, BaseScooter } = models();
+	const f = await EngineFamily.create({
+		name: `Fixture ${tag} 1E41`,
+		engineCycle: 'two-stroke',
+		cooling: 'air',
+		cylinderOrientation: 'horizontal',
+		boreMm: 40,
+		strokeMm: 39.2
+	});
+	familyId = f.id;
+	const common = {
+		engineFamilyId: f.id,
+		carbBoreMm: 12,
+		primaryDriver: 13,
+		primaryDriven: 42,
+		secondaryDriver: 13,
+		secondaryDriven: 46,
+		cvtLowRatio: 2.6,
+		cvtTopRatio: 0.97,
+		rollerCount: 6,
+		rollerWeightG: 6,
+		rearTyre: '120/70-12 51L',
+		peakRpm: 7000
+	};
+	listedId = (
+		await BaseScooter.create({
+			...common,
+			maker: `Wendle${tag}`,
+			model: 'Skylark 50',
+			yearFrom: 2015,
+			yearTo: 2021
+		})
+	).id;
+	proposer = await makeUser();
+	owner = await makeUser();
+	proposedId = (
+		await BaseScooter.create({
+			...common,
+			maker: `Wendle${tag}`,
+			model: 'Skylark 50 LC',
+			yearFrom: 2022,
+			state: 'proposed',
+			proposedBy: proposer.id
+		})
+	).id;
+	for (let i = 0; i < SCOOTER_PAGE + 3; i++) {
+		const { build } = await publishedBuild(owner.id, `Scooter fixture ${tag} ${i}`);
+		await models().Build.update({ baseScooterId: listedId }, { where: { id: build.id } });
+		buildIds.push(build.id);
+	}
+});
+
+afterAll(async () => {
+	for (const id of buildIds) await destroyBuild(id);
+	await models().BaseScooter.destroy({ where: { engineFamilyId: familyId } });
+	await models().EngineFamily.destroy({ where: { id: familyId } });
+	await closeDb();
+});
+
+describe('the catalogue', () => {
+	it('gives each family its displacement from bore and stroke', async () => {
+		const s = await readScooter(listedId);
+		// V = π/4 · B² · S (cylinder geometry, REFERENCES.md "Engine"): 40 mm × 39.2 mm → 49.26 cc.
+		expect(s.family.displacementCc).toBeCloseTo(((Math.PI / 4) * 40 * 40 * 39.2) / 1000, 6);
+		expect(s.family.displacementCc).toBeCloseTo(49.26, 2);
+		expect(s.finalDrive).toEqual([
+			[13, 42],
+			[13, 46]
+		]);
+	});
+
+	it('works out what the stock gearing allows at the power peak', async () => {
+		const s = await readScooter(listedId);
+		// By hand: tyre 120/70-12 → D = 25.4·12 + 2·120·0.70 = 472.8 mm (ETRTO sizing, REFERENCES.md
+		// "Road speed"), circumference π·D = 1485.3 mm; overall 0.97 · 42/13 · 46/13 = 11.089;
+		// 7000 rpm / 11.089 · 1.4853 m · 60 / 1000 = 56.25 km/h.
+		expect(stockGearingLimitKmh(s)).toBeCloseTo(56.25, 1);
+	});
+
+	it('finds a scooter by a misspelt name, best match first', async () => {
+		const found = await findScooters(`Wendle${tag} Skylrak`);
+		expect(found[0]?.id).toBe(listedId);
+		expect(await findScooters(`zzqx${tag}qq`)).toEqual([]);
+	});
+
+	it('shows a proposed entry to its proposer and the moderators only', async () => {
+		const ids = async (viewer: Parameters<typeof catalogue>[0]) =>
+			(await catalogue(viewer)).map((s) => s.id);
+		expect(await ids(null)).toContain(listedId);
+		expect(await ids(null)).not.toContain(proposedId);
+		expect(await ids({ id: owner.id, role: 'member' })).not.toContain(proposedId);
+		expect(await ids({ id: proposer.id, role: 'member' })).toContain(proposedId);
+		await expect(readScooter(proposedId)).rejects.toMatchObject({ status: 404 });
+		await expect(readScooter(proposedId, { id: owner.id, role: 'member' })).rejects.toMatchObject({
+			status: 404
+		});
+		expect((await readScooter(proposedId, { id: owner.id, role: 'moderator' })).state).toBe(
+			'proposed'
+		);
+		expect((await readScooter(proposedId, { id: proposer.id, role: 'member' })).id).toBe(
+			proposedId
+		);
+	});
+});
+
+describe('a scooter’s builds', () => {
+	it('lists the published ones newest first, a page at a time with no overlap, in two queries', async () => {
+		const spy = vi.spyOn(db(), 'query');
+		let first;
+		try {
+			first = await scooterBuilds(listedId);
+			expect(spy.mock.calls.length).toBe(2);
+		} finally {
+			spy.mockRestore();
+		}
+		const newest = [...buildIds].sort((a, b) => b - a);
+		expect(first.builds.map((b) => b.id)).toEqual(newest.slice(0, SCOOTER_PAGE));
+		expect(first.next).toBe(newest[SCOOTER_PAGE - 1]);
+		const second = await scooterBuilds(listedId, first.next);
+		expect(second.builds.map((b) => b.id)).toEqual(newest.slice(SCOOTER_PAGE));
+		expect(second.next).toBeNull();
+	});
+
+	it('leaves a hidden build out', async () => {
+		const hidden = buildIds[0];
+		await setHidden({ type: 'build', id: hidden }, 'test');
+		try {
+			const all = [
+				...(await scooterBuilds(listedId)).builds,
+				...(await scooterBuilds(listedId, (await scooterBuilds(listedId)).next)).builds
+			];
+			expect(all.map((b) => b.id)).not.toContain(hidden);
+		} finally {
+			await setHidden({ type: 'build', id: hidden }, null);
+		}
+	});
+});
+
+describe('the JSON API', () => {
+	it('answers the catalogue and one scooter, and 404 for a proposal it may not see', async () => {
+		const list = await listApi(fakeEvent({ path: `/api/scooters?q=Wendle${tag}` }));
+		expect(list.status).toBe(200);
+		const body = (await list.json()) as { scooters: { id: number }[] };
+		expect(body.scooters.map((s) => s.id)).toEqual([listedId]);
+
+		const one = await oneApi(
+			fakeEvent({ path: `/api/scooters/${listedId}`, params: { id: String(listedId) } })
+		);
+		expect(one.status).toBe(200);
+		const got = (await one.json()) as {
+			scooter: { id: number };
+			builds: unknown[];
+			next: number | null;
+		};
+		expect(got.scooter.id).toBe(listedId);
+		expect(got.builds).toHaveLength(SCOOTER_PAGE);
+		expect(got.next).not.toBeNull();
+
+		const hiddenFromOthers = await oneApi(
+			fakeEvent({
+				path: `/api/scooters/${proposedId}`,
+				params: { id: String(proposedId) },
+				user: asUser(owner)
+			})
+		);
+		expect(hiddenFromOthers.status).toBe(404);
+		const bad = await oneApi(
+			fakeEvent({
+				path: `/api/scooters/${listedId}?before=x`,
+				params: { id: String(listedId) }
+			})
+		);
+		expect(bad.status).toBe(422);
+	});
+});
