@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { open } from './support';
+import { makeUser, open, signInWithPassword } from './support';
 
 // A newcomer with a stock scooter, on a phone: finds it in the catalogue by a name typed from
 // memory, reads what the factory fitted, and sees the build sheets that started from it.
@@ -25,4 +25,30 @@ test('finds a base scooter by a misspelt name and sees its stock data and build 
 	await expect(builds.getByRole('article').first()).toContainText('Tessly Urbano no.');
 	// Nothing on the page is wider than the phone.
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+});
+
+test('a member starts a build sheet from a scooter and finds the stock baseline filled in', async ({
+	page
+}) => {
+	const me = await makeUser();
+	await signInWithPassword(page, me.email, me.password);
+	await open(page, '/builds/new');
+	await page.getByLabel('Maker and model').fill('Kobrn Metro');
+	await page.getByRole('button', { name: 'Find' }).click();
+	await page.getByRole('link', { name: 'Kobrin Metro 50 (2006–2013)' }).click();
+	await expect(page.getByText('Starting from')).toBeVisible();
+	await expect(page.getByLabel('Chassis (frame, wheel size, year)')).toHaveValue(
+		'Kobrin Metro 50 (2006–2013)'
+	);
+	await expect(page.getByLabel('Engine family')).toHaveValue('Kestrel 1E40 air, horizontal');
+	const title = `Metro from the catalogue ${Date.now()}`;
+	await page.getByLabel('Title').fill(title);
+	await page.getByRole('button', { name: 'Save draft and add the first setup' }).click();
+
+	// The stock baseline as the catalogue has it: only what differs needs typing.
+	await expect(page).toHaveURL(/\/setups\/new$/);
+	await expect(page.getByLabel('Carburettor bore')).toHaveValue('12');
+	await expect(page.getByLabel('First stage: driven teeth')).toHaveValue('43');
+	await expect(page.getByLabel('Rear tyre size')).toHaveValue('3.50-10 51J');
+	await expect(page.getByLabel('Roller weights per slot')).toHaveValue('6x5.5');
 });

@@ -10,7 +10,9 @@ import {
 	SCOOTER_PAGE
 } from '../../src/lib/server/scooters/catalogue';
 import { setHidden } from '../../src/lib/server/review/items';
-import { destroyBuild } from '../../src/lib/server/sheet/build-service';
+import { createBuild, destroyBuild } from '../../src/lib/server/sheet/build-service';
+import { newSetupValues } from '../../src/lib/server/sheet/service';
+import { POST as buildsPost } from '../../src/routes/api/builds/+server';
 import { stockGearingLimitKmh } from '../../src/lib/scooters/catalogue';
 import { GET as listApi } from '../../src/routes/api/scooters/+server';
 import { GET as oneApi } from '../../src/routes/api/scooters/[id=id]/+server';
@@ -204,5 +206,80 @@ describe('the JSON API', () => {
 			})
 		);
 		expect(bad.status).toBe(422);
+	});
+});
+
+describe('starting a build from a scooter', () => {
+	it('keeps the scooter a member picks: a listed one or their own proposal, nothing else', async () => {
+		const listed = await createBuild(owner.id, { title: `From the catalogue ${tag}` }, listedId);
+		buildIds.push(listed.id);
+		expect(listed.baseScooterId).toBe(listedId);
+		const own = await createBuild(proposer.id, { title: `From my proposal ${tag}` }, proposedId);
+		buildIds.push(own.id);
+		expect(own.baseScooterId).toBe(proposedId);
+		const before = await models().Build.count({ where: { ownerId: owner.id } });
+		await expect(
+			createBuild(owner.id, { title: `From another's proposal ${tag}` }, proposedId)
+		).rejects.toMatchObject({ status: 422, issues: [{ path: 'baseScooterId' }] });
+		await expect(
+			createBuild(owner.id, { title: `From nothing ${tag}` }, 987654321)
+		).rejects.toMatchObject({ status: 422 });
+		// Refused before anything was written.
+		expect(await models().Build.count({ where: { ownerId: owner.id } })).toBe(before);
+	});
+
+	it('fills the stock baseline setup in from the catalogue', async () => {
+		const b = await createBuild(owner.id, { title: `Prefilled ${tag}` }, listedId);
+		buildIds.push(b.id);
+		expect(await newSetupValues(b)).toEqual({
+			changeNote: 'Stock baseline',
+			isStock: true,
+			exhaustType: 'stock',
+			restrictorRemoved: false,
+			bore: 40,
+			stroke: 39.2,
+			carbBore: 12,
+			topCvtRatio: 0.97,
+			rollerWeights: '6x6',
+			primaryDriver: 13,
+			primaryDriven: 42,
+			secondaryDriver: 13,
+			secondaryDriven: 46,
+			rearTyre: '120/70-12 51L',
+			peakRpm: 7000
+		});
+		// Without a scooter, only what a stock baseline always is.
+		const bare = await createBuild(owner.id, { title: `Bare ${tag}` });
+		buildIds.push(bare.id);
+		expect(await newSetupValues(bare)).toEqual({
+			changeNote: 'Stock baseline',
+			isStock: true,
+			exhaustType: 'stock'
+		});
+	});
+
+	it('takes the scooter over the JSON API too', async () => {
+		const post = (body: unknown) =>
+			buildsPost(
+				fakeEvent({
+					path: '/api/builds',
+					user: asUser(owner),
+					request: {
+						method: 'POST',
+						body: JSON.stringify(body),
+						headers: { 'content-type': 'application/json' }
+					}
+				})
+			);
+		const ok = await post({ title: `API start ${tag}`, baseScooterId: listedId });
+		expect(ok.status).toBe(201);
+		const { id } = (await ok.json()) as { id: number };
+		buildIds.push(id);
+		expect((await models().Build.findByPk(id))!.baseScooterId).toBe(listedId);
+		const refused = await post({ title: `API refused ${tag}`, baseScooterId: proposedId });
+		expect(refused.status).toBe(422);
+		expect(((await refused.json()) as { issues: { path: string }[] }).issues[0].path).toBe(
+			'baseScooterId'
+		);
 	});
 });

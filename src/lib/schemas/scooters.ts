@@ -7,3 +7,11 @@ export const scooterQuerySchema = z.object({ q: z.string().trim().max(80).option
 export const scooterPageSchema = z.object({
 	before: z.coerce.number().int().positive().optional()
 });
+
+/** The catalogue's scooter a new build starts from: an id, or nothing (empty in a form). */
+export const startFromSchema = z.object({
+	baseScooterId: z.preprocess(
+		(v) => (v === '' || v === undefined ? null : v),
+		z.coerce.number().int().positive().nullable()
+	)
+});

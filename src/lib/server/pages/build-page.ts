@@ -3,6 +3,7 @@ import { commentsColumn, commentViews } from '../comments/comments';
 import type { Build } from '../db/models';
 import { scalar, selectColumns } from '../db/nested';
 import { buildCasesColumn, pageStanding } from '../review/standing';
+import { scooterColumn } from '../scooters/catalogue';
 import type { Units } from '../../sheet/units';
 import { buildView, sheetColumns } from '../sheet/view';
 import { linksColumn, linkViews } from '../shops/links';
@@ -26,7 +27,8 @@ export async function buildPage(build: Build, me: CurrentUser | null, units: Uni
 			pending: mine ? linksColumn('requested') : none,
 			comments: commentsColumn(),
 			cases: buildCasesColumn(),
-			actingShop: me && !me.suspension ? actingShopColumn() : none
+			actingShop: me && !me.suspension ? actingShopColumn() : none,
+			scooter: scooterColumn()
 		},
 		{ buildId: build.id, ownerId: build.ownerId, me: me?.id ?? null }
 	);
@@ -54,6 +56,7 @@ export async function buildPage(build: Build, me: CurrentUser | null, units: Uni
 		standing,
 		takenDown,
 		shops,
+		scooter: found.scooter,
 		pendingShops: found.pending ? linkViews(found.pending, true) : [],
 		mine,
 		canComment: open && !me?.suspension,

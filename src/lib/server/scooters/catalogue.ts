@@ -1,10 +1,11 @@
 import { Op, QueryTypes } from 'sequelize';
 import { Failure } from '../../failure';
 import { roleAllows, type Role } from '../../roles';
-import { familyView, type BaseScooterView } from '../../scooters/catalogue';
+import { familyView, scooterName, type BaseScooterView } from '../../scooters/catalogue';
 import { scooterSearch } from '../../scooters/search';
 import { listRows, type ListRow } from '../search/build-list';
 import { db } from '../db/connection';
+import { parseJson, scalar } from '../db/nested';
 import { models, type BaseScooter } from '../db/models';
 
 // The catalogue of base scooters: who sees which entry, the search, and a scooter's builds.
@@ -108,3 +109,41 @@ export async function scooterBuilds(
 		next: ids.length > SCOOTER_PAGE ? page.at(-1)! : null
 	};
 }
+
+/**
+ * The scooter a member may start a build from: a listed one, or one they proposed themselves. Any
+ * other id is refused on the field, so the form shows it beside the picker.
+ */
+export async function usableScooter(id: number, ownerId: string): Promise<BaseScooterView> {
+	try {
+		const s = await readScooter(id, { id: ownerId, role: 'member' });
+		if (s.state !== 'declined') return s;
+	} catch (e) {
+		if (!(e instanceof Failure) || e.status !== 404) throw e;
+	}
+	throw new Failure(422, 'Pick a scooter from the catalogue.', [
+		{ path: 'baseScooterId', message: 'Pick a scooter from the catalogue.' }
+	]);
+}
+
+export type ScooterLink = { id: number; name: string; listed: boolean };
+
+/**
+ * A build's base scooter as `{ id, name, listed }` in one column of a page's SELECT (db/nested.ts;
+ * replacement `buildId`), or null.
+ */
+export const scooterColumn = () =>
+	scalar(
+		`(SELECT JSON_ARRAY(bs.id, bs.maker, bs.model, bs.year_from, bs.year_to, bs.state)
+		FROM builds b JOIN base_scooters bs ON bs.id = b.base_scooter_id WHERE b.id = :buildId)`,
+		(v): ScooterLink | null => {
+			const r = parseJson(v) as [number, string, string, number, number | null, string] | null;
+			if (!r) return null;
+			const [id, maker, model, yearFrom, yearTo, state] = r;
+			return {
+				id,
+				name: scooterName({ maker, model, yearFrom, yearTo }),
+				listed: state === 'listed'
+			};
+		}
+	);

@@ -7,6 +7,7 @@ import { inTransaction } from '../db/transaction';
 import { refreshSummaries } from '../derived/stat-summaries';
 import { forgetItems } from '../review/items';
 import { deleteAfterCommit } from '../storage/objects';
+import { usableScooter } from '../scooters/catalogue';
 import * as builds from './builds';
 import { sheetChanged, stale } from './changed';
 import { listPhotos } from './photos';
@@ -17,11 +18,21 @@ import * as setups from './setups';
 
 type Stored = Record<string, string | number | boolean | null>;
 
-export async function createBuild(ownerId: string, stored: Stored): Promise<Build> {
+/**
+ * Starts a build sheet; `baseScooterId` names the catalogue's scooter it starts from (a listed one
+ * or the member's own proposal, else 422 on that field).
+ */
+export async function createBuild(
+	ownerId: string,
+	stored: Stored,
+	baseScooterId: number | null = null
+): Promise<Build> {
 	return inTransaction(async () => {
+		if (baseScooterId !== null) await usableScooter(baseScooterId, ownerId);
 		const b = await builds.create(ownerId, {
 			...(stored as builds.BuildPatch),
-			title: String(stored.title)
+			title: String(stored.title),
+			baseScooterId
 		});
 		await sheetChanged(b.id);
 		return b;

@@ -8,6 +8,7 @@ export type BuildPatch = Partial<
 		| 'story'
 		| 'chassis'
 		| 'engineFamily'
+		| 'baseScooterId'
 		| 'engineCycle'
 		| 'cooling'
 		| 'cylinderOrientation'

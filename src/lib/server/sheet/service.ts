@@ -11,6 +11,8 @@ import { recomputeSetup } from '../derived/recompute';
 import { inTransaction } from '../db/transaction';
 import { forgetItems } from '../review/items';
 import { sheetChanged, stale } from './changed';
+import { stockBaselineFrom } from '../../scooters/prefill';
+import { readScooter } from '../scooters/catalogue';
 
 // The changes to a build's setups, runs and parts: one function each, shared by the form
 // actions, the JSON routes, the import and the demo data; each is one transaction.
@@ -54,8 +56,18 @@ export async function removeSetup(buildId: number, setupId: number): Promise<voi
 }
 
 /** A new setup starts as a copy of the latest one, with an empty "what changed". */
-export async function newSetupValues(buildId: number): Promise<Stored> {
-	const last = await setups.latest(buildId);
+export async function newSetupValues(build: {
+	id: number;
+	ownerId: string | null;
+	baseScooterId: number | null;
+}): Promise<Stored> {
+	const last = await setups.latest(build.id);
+	if (!last && build.baseScooterId !== null) {
+		// The stock baseline as the factory fitted the scooter the build starts from.
+		const owner = build.ownerId ? { id: build.ownerId, role: 'member' as const } : null;
+		const s = await readScooter(build.baseScooterId, owner).catch(() => null);
+		if (s) return stockBaselineFrom(s) as Stored;
+	}
 	if (!last)
 		return {
 			changeNote: 'Stock baseline',

@@ -5,6 +5,7 @@ import { createOnce } from '$lib/server/web/idempotency';
 import { listBuilds } from '$lib/server/search/build-list';
 import { currencyFor, unitsFor } from '$lib/server/sheet/units';
 import { buildListSchema } from '$lib/schemas/build-list';
+import { startFromSchema } from '$lib/schemas/scooters';
 import { requireUser } from '$lib/server/guard';
 import { sheetBody } from '$lib/server/sheet/api-bodies';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
@@ -21,8 +22,9 @@ export const POST: RequestHandler = api(async (event) => {
 	const me = requireUser(event);
 	const body = await readJson(event.request);
 	const stored = sheetBody('build', BUILD_FIELDS, body, 'draft');
+	const { baseScooterId } = parse(startFromSchema, body ?? {});
 	return createOnce(event.request, me.id, body, async () => {
-		const b = await createBuild(me.id, stored);
+		const b = await createBuild(me.id, stored, baseScooterId);
 		return { id: b.id, version: b.version, publication: b.publication };
 	});
 });

@@ -6,14 +6,31 @@ import { requireUser } from '$lib/server/guard';
 import { readSheetForm, sheetForm } from '$lib/server/sheet/forms';
 import { unitsFor } from '$lib/server/sheet/units';
 import { BUILD_FIELDS } from '$lib/sheet/fields';
+import { startFromSchema } from '$lib/schemas/scooters';
+import { formFailure } from '$lib/server/web/form-failure';
+import { buildFieldsFrom } from '$lib/scooters/prefill';
+import { findScooters, usableScooter } from '$lib/server/scooters/catalogue';
 import type { Actions, PageServerLoad } from './$types';
 
+// A new sheet starts from a scooter of the catalogue (`?scooter=`, found by `?find=`, typos
+// forgiven): the build's fields come filled in from it, and so will the stock baseline setup.
 export const load: PageServerLoad = async (event) => {
-	requireUser(event);
+	const me = requireUser(event);
 	const units = unitsFor(event);
+	const viewer = { id: me.id, role: me.role };
+	const picked = Number(event.url.searchParams.get('scooter'));
+	const find = (event.url.searchParams.get('find') ?? '').trim().slice(0, 80);
+	const scooter =
+		Number.isInteger(picked) && picked > 0
+			? await usableScooter(picked, me.id).catch(() => null)
+			: null;
 	return {
 		units,
-		form: await sheetForm('build', BUILD_FIELDS, units, null)
+		find,
+		scooter,
+		unknownScooter: picked > 0 && !scooter,
+		found: !scooter && find ? (await findScooters(find, viewer)).slice(0, 8) : [],
+		form: await sheetForm('build', BUILD_FIELDS, units, scooter ? buildFieldsFrom(scooter) : null)
 	};
 };
 
@@ -59,9 +76,15 @@ export const actions: Actions = {
 	},
 	create: async (event) => {
 		const me = requireUser(event);
-		const { form, stored } = await readSheetForm(event.request, 'build', BUILD_FIELDS);
+		const { form, stored, fd } = await readSheetForm(event.request, 'build', BUILD_FIELDS);
 		if (!form.valid) return fail(400, { form });
-		const b = await createBuild(me.id, stored);
+		const start = startFromSchema.safeParse({ baseScooterId: fd.get('baseScooterId') ?? '' });
+		let b;
+		try {
+			b = await createBuild(me.id, stored, start.success ? start.data.baseScooterId : -1);
+		} catch (e) {
+			return formFailure(form, e);
+		}
 		redirect(303, `/builds/${b.id}/setups/new`);
 	}
 };

@@ -11,7 +11,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const { build } = await editBuild(event, Number(event.params.id));
 	const units = unitsFor(event);
-	const values = await newSetupValues(build.id);
+	const values = await newSetupValues(build);
 	return {
 		units,
 		build: { id: build.id, title: build.title },
