@@ -9,7 +9,7 @@ import { MAX_POINTS, speedMap, xSpread } from '../../src/lib/server/stats/speed-
 import { engineFamilies } from '../../src/lib/server/stats/families';
 import { speedMapQuerySchema } from '../../src/lib/schemas/stats';
 import * as builds from '../../src/lib/server/sheet/builds';
-import { saveBuild, setPublication } from '../../src/lib/server/sheet/build-service';
+import { destroyBuild, saveBuild, setPublication } from '../../src/lib/server/sheet/build-service';
 import { makeUser } from '../support/factories';
 import { publishedBuild } from '../support/moderation-fixtures';
 
@@ -190,6 +190,18 @@ describe('builds list and search', () => {
 			expect(sqls.length).toBe(3); // the walk, the range, the rows' details
 			expect(sqls[0]).toContain('ROWS EXAMINED :walkCap');
 			expect(sqls[1]).toContain('builds_by_whole_cc');
+			// Each whole-cc step is read in its index's own order (speed, then id): no step is sorted.
+			const steps = await db().query<{ table: string; Extra: string | null }>(
+				`EXPLAIN ${sqls[1]}`,
+				{
+					replacements: (spy.mock.calls[1][1] as { replacements: Record<string, unknown> })
+						.replacements,
+					type: QueryTypes.SELECT
+				}
+			);
+			const reads = steps.filter((p) => p.table === 'b');
+			expect(reads.length).toBeGreaterThan(0);
+			for (const p of reads) expect(p.Extra ?? '').not.toContain('filesort');
 			for (const b of page.builds) {
 				expect(b.displacementCc!).toBeGreaterThanOrEqual(49);
 				expect(b.displacementCc!).toBeLessThanOrEqual(50);
@@ -305,6 +317,33 @@ describe('builds list and search', () => {
 		expect(await ids('brackenf')).toEqual([build.id]);
 		await setPublication((await builds.read(build.id))!, 'draft');
 		expect(await ids('brackenfield')).toEqual([]);
+	});
+
+	it('keeps the vocabulary with the word index: new words join, words no build holds leave', async () => {
+		const inVocabulary = async (w: string) =>
+			(
+				await db().query<{ n: number }>(
+					'SELECT COUNT(*) AS n FROM search_vocabulary WHERE word = :w',
+					{ replacements: { w }, type: QueryTypes.SELECT }
+				)
+			)[0].n > 0;
+		const owner = await makeUser();
+		const one = await publishedBuild(owner.id, 'Zerrowmint special');
+		const two = await publishedBuild(owner.id, 'Zerrowmint trial');
+		expect(await inVocabulary('zerrowmint')).toBe(true);
+		expect(await inVocabulary('trial')).toBe(true);
+		await saveBuild(two.build.id, two.build.version, { title: 'Quorrelby trial' });
+		// One build still holds it.
+		expect(await inVocabulary('zerrowmint')).toBe(true);
+		expect(await inVocabulary('quorrelby')).toBe(true);
+		await destroyBuild(one.build.id);
+		expect(await inVocabulary('zerrowmint')).toBe(false);
+		await setPublication((await builds.read(two.build.id))!, 'draft');
+		expect(await inVocabulary('quorrelby')).toBe(false);
+		// The typo correction reads it: a gone word is no longer offered.
+		forgetVocabulary();
+		expect((await list({ q: 'zerrowmitn' })).didYouMean).not.toBe('zerrowmint');
+		await destroyBuild(two.build.id);
 	});
 
 	it('walks the word index newest first and stops after a page: no sort of every match', async () => {

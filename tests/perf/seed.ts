@@ -145,6 +145,7 @@ export async function seed(
 		'speed_map_bins',
 		'effect_counts',
 		'search_words',
+		'search_vocabulary',
 		'photos',
 		'parts',
 		'runs',
@@ -221,6 +222,10 @@ export async function seed(
 				`INSERT INTO parts (id, build_id, setup_id, category, name, cost_minor, link, created_at) VALUES ${pt.join(',')}`
 			);
 	}
+	// The vocabulary of the word index, filled as its migration fills it.
+	await s.query(
+		'INSERT IGNORE INTO search_vocabulary (word) SELECT DISTINCT word FROM search_words'
+	);
 	// The speed map's and change effects' summaries, filled as their migration fills them.
 	const t0 = performance.now();
 	for (const sql of fillStatements()) await s.query(sql);

@@ -26,6 +26,8 @@ import * as m022 from './migrations/2026.12.03T17.00.00.public-version';
 import * as m023 from './migrations/2026.12.03T17.30.00.list-walks';
 import * as m024 from './migrations/2026.12.03T20.00.00.walk-newest';
 import * as m025 from './migrations/2026.12.03T20.30.00.base-scooters';
+import * as m026 from './migrations/2026.12.03T21.00.00.search-vocabulary';
+import * as m027 from './migrations/2026.12.03T21.10.00.whole-cc-by-speed-and-id';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -55,7 +57,9 @@ const MIGRATIONS = [
 	{ name: '2026.12.03T17.00.00.public-version', ...m022 },
 	{ name: '2026.12.03T17.30.00.list-walks', ...m023 },
 	{ name: '2026.12.03T20.00.00.walk-newest', ...m024 },
-	{ name: '2026.12.03T20.30.00.base-scooters', ...m025 }
+	{ name: '2026.12.03T20.30.00.base-scooters', ...m025 },
+	{ name: '2026.12.03T21.00.00.search-vocabulary', ...m026 },
+	{ name: '2026.12.03T21.10.00.whole-cc-by-speed-and-id', ...m027 }
 ];
 
 export function migrator() {

@@ -110,13 +110,13 @@ function cursorWhere(q: BuildListQuery) {
 const EXPANSIONS = 20;
 
 /**
- * The indexed words each typed word begins, in one query: a range of the word index per typed word,
- * one entry per distinct word (a loose index scan), so it costs the same at any number of builds.
+ * The indexed words each typed word begins, in one query: a range of the vocabulary (the index's
+ * distinct words, search_vocabulary) per typed word, so it costs the same at any number of builds.
  */
 async function expand(typed: string[]): Promise<string[][]> {
 	const parts = typed.map(
 		(_, i) =>
-			`(SELECT ${i} AS i, word FROM search_words WHERE word LIKE :p${i} GROUP BY word LIMIT ${EXPANSIONS})`
+			`(SELECT ${i} AS i, word FROM search_vocabulary WHERE word LIKE :p${i} ORDER BY word LIMIT ${EXPANSIONS})`
 	);
 	const rows = await db().query<{ i: number; word: string }>(parts.join(' UNION ALL '), {
 		replacements: Object.fromEntries(typed.map((w, i) => [`p${i}`, `${w.slice(0, WORD_MAX)}%`])),

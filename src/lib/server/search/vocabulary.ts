@@ -5,9 +5,9 @@ import { words } from '../../search/words';
 
 // Typo tolerance. The word index (in the builds list query) matches whole words and prefixes only,
 // so a misspelt part name finds nothing. The distinct words of that index — a few thousand, far
-// fewer than the builds, read from it one entry per word (a loose index scan, so this costs the
-// same at a million builds as at a thousand) — are held here with a fuse.js index; when a search
-// finds nothing, each unknown word is swapped for its nearest one and the search runs once more.
+// fewer than the builds, kept one row each in search_vocabulary, so this costs the same at a
+// million builds as at a thousand — are held here with a fuse.js index; when a search finds
+// nothing, each unknown word is swapped for its nearest one and the search runs once more.
 
 const FRESH_MS = 5 * 60_000;
 let held: { at: number; known: Set<string>; fuse: Fuse<string> } | null = null;
@@ -17,7 +17,7 @@ async function load(now: number) {
 	const rows = await db().query<{ t: string }>(
 		// Words from "a" on: numbers (a build's year, its cc, an id in a title) are never corrected
 		// (see `correct`), and there can be as many of them as builds.
-		"SELECT word AS t FROM search_words WHERE word >= 'a' GROUP BY word LIMIT 50000",
+		"SELECT word AS t FROM search_vocabulary WHERE word >= 'a' ORDER BY word LIMIT 50000",
 		{ type: QueryTypes.SELECT }
 	);
 	const known = new Set(rows.map((r) => r.t));

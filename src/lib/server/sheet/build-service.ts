@@ -5,6 +5,7 @@ import { Failure } from '../../failure';
 import { models, type Build } from '../db/models';
 import { inTransaction } from '../db/transaction';
 import { refreshSummaries } from '../derived/stat-summaries';
+import { dropWords } from '../derived/search-words';
 import { forgetItems } from '../review/items';
 import { deleteAfterCommit } from '../storage/objects';
 import { usableScooter } from '../scooters/catalogue';
@@ -113,6 +114,8 @@ export async function destroyBuild(buildId: number): Promise<void> {
 			...setupRows.map((s) => ({ type: 'setup' as const, id: s.id })),
 			...comments.map((c) => ({ type: 'comment' as const, id: c.id }))
 		]);
+		// Its words leave the vocabulary too (the index's rows alone would go with the build).
+		await dropWords(buildId);
 		await Build.destroy({ where: { id: buildId } });
 		// Its setups are gone: the summaries take away what they had added.
 		await refreshSummaries(buildId);
