@@ -156,6 +156,8 @@ const MATRIX: Record<string, Spec> = {
 	'/report ?/default': { policy: 'member', ok: 400 },
 	'/review ?/note': { policy: 'moderator', ok: 400 },
 	'/review ?/decide': { policy: 'moderator', ok: 400 },
+	'/review ?/scooter': { policy: 'moderator', ok: 400 },
+	'/scooters/propose ?/propose': { policy: 'member', ok: 400 },
 	'/reset ?/default': { policy: 'public', ok: 400 },
 	'/verify/again ?/default': { policy: 'public', ok: 400 },
 	'/reset/[token] ?/default': { policy: 'public', ok: 400 },

@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { closeDb, db } from '../../src/lib/server/db/connection';
 import { models } from '../../src/lib/server/db/models';
@@ -12,6 +13,8 @@ import {
 import { setHidden } from '../../src/lib/server/review/items';
 import { createBuild, destroyBuild } from '../../src/lib/server/sheet/build-service';
 import { newSetupValues } from '../../src/lib/server/sheet/service';
+import { decideProposal, proposeScooter } from '../../src/lib/server/scooters/proposals';
+import { proposeScooterSchema } from '../../src/lib/schemas/scooters';
 import { POST as buildsPost } from '../../src/routes/api/builds/+server';
 import { stockGearingLimitKmh } from '../../src/lib/scooters/catalogue';
 import { GET as listApi } from '../../src/routes/api/scooters/+server';
@@ -281,5 +284,100 @@ describe('starting a build from a scooter', () => {
 		expect(((await refused.json()) as { issues: { path: string }[] }).issues[0].path).toBe(
 			'baseScooterId'
 		);
+	});
+});
+
+describe('proposals and the desk', () => {
+	const proposal = (model: string, extra: Record<string, string> = {}) =>
+		proposeScooterSchema.parse({
+			maker: `Prop${tag}`,
+			model,
+			yearFrom: '2016',
+			familyName: `Prop${tag} ${model} engine`,
+			engineCycle: 'four-stroke',
+			cooling: 'air',
+			cylinderOrientation: 'horizontal',
+			boreMm: '52.4',
+			strokeMm: '57.8',
+			carbBoreMm: '24',
+			...extra
+		});
+	const families = () =>
+		models().EngineFamily.count({ where: { name: { [Op.like]: `Prop${tag}%` } } });
+	const scooters = () => models().BaseScooter.count({ where: { maker: `Prop${tag}` } });
+
+	afterAll(async () => {
+		const { BaseScooter, EngineFamily } = models();
+		await models().Build.update({ baseScooterId: null }, { where: { ownerId: proposer.id } });
+		await BaseScooter.destroy({ where: { maker: `Prop${tag}` } });
+		await EngineFamily.destroy({ where: { name: { [Op.like]: `Prop${tag}%` } } });
+	});
+
+	it('adds a proposal with its new engine in one transaction, or nothing', async () => {
+		const me = asUser(proposer);
+		const spy = vi
+			.spyOn(models().BaseScooter, 'create')
+			.mockRejectedValueOnce(new Error('injected after the family was written'));
+		await expect(proposeScooter(me, proposal('Half'))).rejects.toThrow('injected');
+		spy.mockRestore();
+		expect(await families()).toBe(0);
+		expect(await scooters()).toBe(0);
+
+		const id = await proposeScooter(me, proposal('Whole'));
+		expect(await families()).toBe(1);
+		const s = await readScooter(id, { id: proposer.id, role: 'member' });
+		expect(s.state).toBe('proposed');
+		// 52.4 × 57.8 mm: V = π/4 · B² · S = 124.65 cc (REFERENCES.md "Engine").
+		expect(s.family.displacementCc).toBeCloseTo(124.65, 2);
+		// The same scooter twice: refused, nothing more written.
+		await expect(
+			proposeScooter(me, proposal('Whole', { familyName: `Prop${tag} other engine` }))
+		).rejects.toMatchObject({ status: 409 });
+		expect(await families()).toBe(1);
+		expect(await scooters()).toBe(1);
+	});
+
+	it('lists an accepted one for everyone and logs the decision; a declined one is usable by nobody', async () => {
+		const me = asUser(proposer);
+		const moderator = asUser(await makeUser({ role: 'moderator' }), 'moderator');
+		const accepted = await proposeScooter(me, proposal('Taken'));
+		const declined = await proposeScooter(me, proposal('Refused'));
+		const at = new Date();
+
+		// The log refuses the line: the decision is not half made.
+		const spy = vi
+			.spyOn(models().LogEntry, 'create')
+			.mockRejectedValueOnce(new Error('injected log failure'));
+		await expect(
+			decideProposal(moderator, { scooterId: accepted, decision: 'accept', reason: '' }, at)
+		).rejects.toThrow('injected');
+		spy.mockRestore();
+		expect((await models().BaseScooter.findByPk(accepted))!.state).toBe('proposed');
+
+		await decideProposal(
+			moderator,
+			{ scooterId: accepted, decision: 'accept', reason: 'checked the maker’s sheet' },
+			at
+		);
+		expect((await catalogue(null)).map((s) => s.id)).toContain(accepted);
+		const line = await models().LogEntry.findOne({
+			where: { itemType: 'scooter', itemId: accepted }
+		});
+		expect(line?.action).toBe('scooter-accept');
+		expect(line?.actorId).toBe(moderator.id);
+		expect(line?.subjectId).toBe(proposer.id);
+		await expect(
+			decideProposal(moderator, { scooterId: accepted, decision: 'decline', reason: 'x' }, at)
+		).rejects.toMatchObject({ status: 409 });
+
+		await decideProposal(
+			moderator,
+			{ scooterId: declined, decision: 'decline', reason: 'a duplicate' },
+			at
+		);
+		expect((await catalogue(me)).map((s) => s.id)).not.toContain(declined);
+		await expect(
+			createBuild(proposer.id, { title: `From a declined one ${tag}` }, declined)
+		).rejects.toMatchObject({ status: 422 });
 	});
 });

@@ -48,7 +48,9 @@ export const LOG_LABEL: Record<string, string> = {
 	'handover-accept': 'Customer took over a build',
 	'staff-invite': 'Shop invited staff',
 	'staff-remove': 'Shop removed staff',
-	'account-delete': 'Member deleted their account'
+	'account-delete': 'Member deleted their account',
+	'scooter-accept': 'Accepted a scooter into the catalogue',
+	'scooter-decline': 'Declined a proposed scooter'
 };
 
 /** Unsafe reports from this many different members put the caution banner up on their own. */

@@ -3,6 +3,9 @@ import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { deskNoteSchema } from '$lib/schemas/review-notes';
 import { deskActionSchema } from '$lib/schemas/review';
+import { scooterDecisionSchema } from '$lib/schemas/scooters';
+import { decideProposal, waitingProposals } from '$lib/server/scooters/proposals';
+import { Failure } from '$lib/failure';
 import { clock } from '$lib/clock';
 import * as deskNotes from '$lib/server/review/notes';
 import { requireRole } from '$lib/server/guard';
@@ -20,14 +23,15 @@ export const load: PageServerLoad = async (event) => {
 	const q = event.url.searchParams;
 	const order = q.get('order') === 'newest' ? 'newest' : 'oldest';
 	const after = q.get('after') ?? undefined;
-	const [queue, waiting, notes, form] = await Promise.all([
+	const [queue, waiting, notes, form, proposals] = await Promise.all([
 		deskQueue({ order, after, limit: PAGE }),
 		deskCount(),
 		deskNotes.list(),
-		superValidate(zod4(deskNoteSchema))
+		superValidate(zod4(deskNoteSchema)),
+		waitingProposals()
 	]);
 	const next = queue.length === PAGE ? deskCursor(queue.at(-1)!) : null;
-	return { queue, waiting, order, paged: Boolean(after), next, notes, form };
+	return { queue, waiting, order, paged: Boolean(after), next, notes, form, proposals };
 };
 
 export const actions: Actions = forPages({
@@ -58,6 +62,31 @@ export const actions: Actions = forPages({
 			done: {
 				caseId,
 				message: `${LOG_LABEL[form.data.action]}. Logged${MAILED.includes(form.data.action) ? ' and mailed to the author' : ''}.`
+			}
+		};
+	},
+	scooter: async (event) => {
+		const me = requireRole(event, 'moderator');
+		const form = await parseForm(event.request, scooterDecisionSchema);
+		const scooterId = Number(form.values.scooterId) || 0;
+		if (!form.ok) return fail(400, { scooter: { scooterId, message: form.message } });
+		if (form.data.decision === 'decline' && !form.data.reason)
+			return fail(400, {
+				scooter: { scooterId, message: 'Write the reason first: the log keeps it.' }
+			});
+		try {
+			await decideProposal(me, form.data, clock());
+		} catch (e) {
+			if (!(e instanceof Failure)) throw e;
+			return fail(e.status, { scooter: { scooterId, message: e.message } });
+		}
+		return {
+			done: {
+				caseId: 0,
+				message:
+					form.data.decision === 'accept'
+						? 'Accepted into the catalogue. Logged.'
+						: 'Proposal declined. Logged.'
 			}
 		};
 	}

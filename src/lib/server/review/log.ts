@@ -6,7 +6,8 @@ export type LogInput = {
 	at: Date;
 	actorId: string | null;
 	action: string;
-	item?: ItemRef | null;
+	/** A desk item, or a proposed base scooter (decided on the desk, not reported). */
+	item?: ItemRef | { type: 'scooter'; id: number } | null;
 	subjectId?: string | null;
 	reason?: string;
 	detail?: Record<string, unknown> | null;

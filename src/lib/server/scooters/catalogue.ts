@@ -147,3 +147,12 @@ export const scooterColumn = () =>
 			};
 		}
 	);
+
+/** Every engine family by name, for choosing one. */
+export async function familyChoices(): Promise<{ id: number; name: string }[]> {
+	const rows = await models().EngineFamily.findAll({
+		attributes: ['id', 'name'],
+		order: [['name', 'ASC']]
+	});
+	return rows.map((f) => ({ id: f.id, name: f.name }));
+}
