@@ -71,6 +71,8 @@ test('a member’s pages have no serious accessibility problems in either theme'
 		'/bench',
 		`/builds/${build.id}/edit`,
 		`/builds/${build.id}/setups/${setupId}/runs/new`,
+		'/builds/new?find=urbano',
+		'/scooters/propose',
 		'/profile'
 	]);
 });
