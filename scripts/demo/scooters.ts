@@ -4,15 +4,9 @@
 // class limit), so the catalogue agrees with the runs the demo builds then log.
 import { gearingLimitedSpeedKmh } from '../../src/lib/tuning';
 import { models } from '../../src/lib/server/db/models';
+import type { EngineFamilyView } from '../../src/lib/scooters/catalogue';
 
-type Family = {
-	name: string;
-	engineCycle: 'two-stroke' | 'four-stroke';
-	cooling: 'air' | 'liquid';
-	cylinderOrientation: 'horizontal' | 'vertical';
-	boreMm: number;
-	strokeMm: number;
-};
+type Family = Omit<EngineFamilyView, 'id' | 'displacementCc'>;
 
 export const FAMILIES = {
 	kestrel: {

@@ -110,6 +110,16 @@ export async function scooterBuilds(
 	};
 }
 
+/** What a lookup gave, or null when it was refused (404, 422); a database failure still throws. */
+export async function unlessRefused<T>(lookup: Promise<T>): Promise<T | null> {
+	try {
+		return await lookup;
+	} catch (e) {
+		if (e instanceof Failure && (e.status === 404 || e.status === 422)) return null;
+		throw e;
+	}
+}
+
 /**
  * The scooter a member may start a build from: a listed one, or one they proposed themselves. Any
  * other id is refused on the field, so the form shows it beside the picker.

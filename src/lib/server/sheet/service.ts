@@ -12,7 +12,7 @@ import { inTransaction } from '../db/transaction';
 import { forgetItems } from '../review/items';
 import { sheetChanged, stale } from './changed';
 import { stockBaselineFrom } from '../../scooters/prefill';
-import { readScooter } from '../scooters/catalogue';
+import { readScooter, unlessRefused } from '../scooters/catalogue';
 
 // The changes to a build's setups, runs and parts: one function each, shared by the form
 // actions, the JSON routes, the import and the demo data; each is one transaction.
@@ -65,7 +65,7 @@ export async function newSetupValues(build: {
 	if (!last && build.baseScooterId !== null) {
 		// The stock baseline as the factory fitted the scooter the build starts from.
 		const owner = build.ownerId ? { id: build.ownerId, role: 'member' as const } : null;
-		const s = await readScooter(build.baseScooterId, owner).catch(() => null);
+		const s = await unlessRefused(readScooter(build.baseScooterId, owner));
 		if (s) return stockBaselineFrom(s) as Stored;
 	}
 	if (!last)

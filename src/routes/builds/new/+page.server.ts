@@ -9,7 +9,7 @@ import { BUILD_FIELDS } from '$lib/sheet/fields';
 import { startFromSchema } from '$lib/schemas/scooters';
 import { formFailure } from '$lib/server/web/form-failure';
 import { buildFieldsFrom } from '$lib/scooters/prefill';
-import { findScooters, usableScooter } from '$lib/server/scooters/catalogue';
+import { findScooters, unlessRefused, usableScooter } from '$lib/server/scooters/catalogue';
 import type { Actions, PageServerLoad } from './$types';
 
 // A new sheet starts from a scooter of the catalogue (`?scooter=`, found by `?find=`, typos
@@ -22,7 +22,7 @@ export const load: PageServerLoad = async (event) => {
 	const find = (event.url.searchParams.get('find') ?? '').trim().slice(0, 80);
 	const scooter =
 		Number.isInteger(picked) && picked > 0
-			? await usableScooter(picked, me.id).catch(() => null)
+			? await unlessRefused(usableScooter(picked, me.id))
 			: null;
 	return {
 		units,
@@ -81,7 +81,8 @@ export const actions: Actions = {
 		const start = startFromSchema.safeParse({ baseScooterId: fd.get('baseScooterId') ?? '' });
 		let b;
 		try {
-			b = await createBuild(me.id, stored, start.success ? start.data.baseScooterId : -1);
+			if (!start.success) throw new Failure(422, 'Pick a scooter from the catalogue.');
+			b = await createBuild(me.id, stored, start.data.baseScooterId);
 		} catch (e) {
 			return formFailure(form, e);
 		}
